@@ -1,0 +1,3 @@
+import { OverviewScreen } from '@/components/overview/overview-screen';
+
+export default OverviewScreen;

@@ -1,0 +1,18 @@
+import { View } from 'react-native';
+import { navItems } from './nav-items';
+import { NavLink } from './nav-link';
+
+/** Phone navigation: thumb-reachable, hidden from 1024 px up where the rail takes over. */
+export function BottomBar() {
+  return (
+    <View
+      accessibilityRole="tablist"
+      className="flex-row border-t border-rule bg-paper-card lg:hidden"
+      style={{ paddingBottom: 4 }}
+    >
+      {navItems.map((item) => (
+        <NavLink key={item.href} item={item} layout="bar" />
+      ))}
+    </View>
+  );
+}

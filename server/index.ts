@@ -1,0 +1,40 @@
+import type { Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import type { Knex } from 'knex';
+import { createApp } from './app';
+import type { Config } from './config';
+import { migrateToLatest, openDatabase } from './db/connection';
+
+export interface RunningServer {
+  url: string;
+  db: Knex;
+  server: Server;
+  close(): Promise<void>;
+}
+
+/**
+ * Opens and migrates the database, then listens. Used by `npm start` and by
+ * the browser tests, which start it in-process on a free port.
+ */
+export async function startServer(config: Config, options: { seed?: boolean } = {}): Promise<RunningServer> {
+  const db = openDatabase(config.databaseFile);
+  await migrateToLatest(db);
+  if (options.seed) await db.seed.run();
+  const app = createApp({ db, config });
+  const server = await new Promise<Server>((resolve, reject) => {
+    const s = app.listen(config.port, config.host, () => resolve(s));
+    s.once('error', reject);
+  });
+  const { port } = server.address() as AddressInfo;
+  const host = config.host === '0.0.0.0' || config.host === '::' ? 'localhost' : config.host;
+  return {
+    url: `http://${host}:${port}`,
+    db,
+    server,
+    async close() {
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+      server.closeAllConnections?.();
+      await db.destroy();
+    },
+  };
+}

@@ -1,0 +1,17 @@
+import type { Knex } from 'knex';
+import { mkdtempSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { migrateToLatest, openDatabase } from '../../../server/db/connection';
+
+/**
+ * A fresh, migrated database file per call (a file, not :memory:, so tests
+ * see the same WAL and pragma set-up as the running server).
+ */
+export async function freshDatabase(options: { seed?: boolean } = {}): Promise<Knex> {
+  const dir = mkdtempSync(path.join(os.tmpdir(), 'hairline-test-db-'));
+  const db = openDatabase(path.join(dir, 'test.sqlite3'));
+  await migrateToLatest(db);
+  if (options.seed) await db.seed.run();
+  return db;
+}
