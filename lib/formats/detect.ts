@@ -76,13 +76,12 @@ export function checkClaimedFormat(format: ImportFormat, text: string): ImportPr
   const wrong = (advice: string) => problem('wrong-format', undefined, `this file looks like ${LABEL[kind]}, not ${claimed}; ${advice}`);
   if (kind === 'binary') return wrong(`save or export it as ${claimed} and import that file`);
   if (kind === format || kind === 'unknown') return undefined;
-  if (format === 'graphml') return kind === 'xml' ? undefined : wrong(`choose ${LABEL[kind]} as the format`);
+  if (format === 'graphml' && kind === 'xml') return undefined;
   if (kind === 'semicolon') {
-    return format === 'csv' ? wrong('export it again with commas between the columns (many spreadsheets offer this under CSV options)') : wrong('export it again with tabs between the columns');
+    if (format === 'tsv') return wrong('export it again with tabs between the columns');
+    return wrong('export it again as CSV with commas between the columns (many spreadsheets offer this under CSV options)');
   }
   if (kind === 'xml') return wrong('export the network as CSV, TSV, JSON or GraphML');
-  if (format === 'json' && (kind === 'csv' || kind === 'tsv')) return wrong(`choose ${LABEL[kind]} as the format`);
-  if (format === 'json') return undefined;
   return wrong(`choose ${LABEL[kind]} as the format`);
 }
 

@@ -43,9 +43,10 @@ export function readGraphml(text: string, options: GraphmlOptions, problems: Pro
   const edges = children(graph, 'edge').map((edge, i) => readEdge(edge, i, lines, { weightKey, graphUndirected, options }, problems));
   if (edges.length === 0) {
     problems.report('empty-file', graphWhere, 'the graph has no <edge> elements; a network needs at least one edge');
-    return { edges: [], nodes, fatal: true };
+    return { edges: [], fatal: true };
   }
-  return { edges, nodes, fatal: false };
+  // GraphML asks for <node> declarations, but some exporters omit them all; then the edges define the nodes.
+  return { edges, nodes: nodes.length > 0 ? nodes : undefined, fatal: false };
 }
 
 function firstElement(value: unknown): XmlElement {
