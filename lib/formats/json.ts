@@ -4,8 +4,9 @@
  * only a syntax error, whose offset the engine reports, gets a line number.
  */
 import { ROLES, matchKey, type Role } from './columns';
+import { scanJson } from './json-scan';
 import { LineIndex } from './lines';
-import { atElement, atLine, quote, type ProblemList, type Where } from './problems';
+import { atElement, atLine, quote, within, type ProblemList, type Where } from './problems';
 import type { RawEdge, RawImport, RawNode, RawWeight } from './raw';
 import type { ColumnMapping } from './types';
 
@@ -15,13 +16,19 @@ export function readJson(
   bothWays: boolean,
   problems: ProblemList,
 ): RawImport {
+  const lines = new LineIndex(text);
+  const scan = scanJson(text);
   let doc: unknown;
   try {
     doc = JSON.parse(text);
-  } catch (err) {
-    reportSyntax(text, err, problems);
+  } catch {
+    reportSyntax(scan.errorAt === undefined ? undefined : lines.lineAt(scan.errorAt), problems);
     return { edges: [], fatal: true };
   }
+  const at = (path: string) => {
+    const offset = scan.offsets.get(path);
+    return atElement(path, offset === undefined ? undefined : lines.lineAt(offset));
+  };
   if (Array.isArray(doc)) {
     problems.report('bad-structure', undefined, 'the file is a bare list; wrap it as { "edges": [ … ] } so Hairline knows the list holds edges');
     return { edges: [], fatal: true };
@@ -42,8 +49,8 @@ export function readJson(
     return { edges: [], fatal: true };
   }
   // A broken node list is reported but does not stop the edge checks: the user sees both at once.
-  const nodes = doc.nodes === undefined || doc.nodes === null ? undefined : (readNodes(doc.nodes, problems) ?? undefined);
-  const edges = doc.edges.map((item, i) => readEdge(item, atElement(`edges[${i}]`), mapping, bothWays, problems));
+  const nodes = doc.nodes === undefined || doc.nodes === null ? undefined : (readNodes(doc.nodes, at, problems) ?? undefined);
+  const edges = doc.edges.map((item, i) => readEdge(item, at(`edges[${i}]`), mapping, bothWays, problems));
   return { edges: edges.filter((e): e is RawEdge => e !== undefined), nodes, fatal: false };
 }
 
@@ -75,18 +82,18 @@ function readEdge(
   if (missing) return undefined;
   return {
     where,
-    source: readName(found.source, `${where.label}.source`, problems),
-    target: readName(found.target, `${where.label}.target`, problems),
+    source: readName(found.source, within(where, 'source'), problems),
+    target: readName(found.target, within(where, 'target'), problems),
     weight: readWeight(found.weight, where, problems),
     bothWays,
   };
 }
 
 /** Names may be written as text or as numbers (many tools number their nodes). */
-function readName(value: unknown, path: string, problems: ProblemList): string | undefined {
+function readName(value: unknown, where: Where, problems: ProblemList): string | undefined {
   if (typeof value === 'string') return value;
   if (typeof value === 'number' && Number.isFinite(value)) return String(value);
-  problems.report('bad-name', atElement(path), `a node name must be text or a number, found ${describe(value)}`);
+  problems.report('bad-name', where, `a node name must be text or a number, found ${describe(value)}`);
   return undefined;
 }
 
@@ -99,29 +106,25 @@ function readWeight(value: unknown, where: Where, problems: ProblemList): RawWei
 }
 
 /** Returns null when "nodes" is not a list (already reported). */
-function readNodes(value: unknown, problems: ProblemList): RawNode[] | null {
+function readNodes(value: unknown, at: (path: string) => Where, problems: ProblemList): RawNode[] | null {
   if (!Array.isArray(value)) {
     problems.report('bad-structure', atElement('nodes'), `expected a list of node names, found ${describe(value)}`);
     return null;
   }
   return value.map((item, i): RawNode => {
-    const where = atElement(`nodes[${i}]`);
+    const where = at(`nodes[${i}]`);
     if (isObject(item)) {
       if (!('id' in item)) {
         problems.report('missing-field', where, 'a node object needs an "id", as in { "id": "pump-3" }');
         return { where, name: undefined };
       }
-      return { where, name: readName(item.id, `${where.label}.id`, problems) };
+      return { where, name: readName(item.id, within(where, 'id'), problems) };
     }
-    return { where, name: readName(item, where.label, problems) };
+    return { where, name: readName(item, where, problems) };
   });
 }
 
-function reportSyntax(text: string, err: unknown, problems: ProblemList): void {
-  const detail = err instanceof Error ? err.message : String(err);
-  const position = /position (\d+)/.exec(detail);
-  const lineCol = /line (\d+)/.exec(detail);
-  const line = position ? new LineIndex(text).lineAt(Number(position[1])) : lineCol ? Number(lineCol[1]) : undefined;
+function reportSyntax(line: number | undefined, problems: ProblemList): void {
   const advice = 'check for a missing comma, quote or bracket, or a trailing comma, which JSON does not allow';
   if (line === undefined) problems.report('malformed', undefined, `the JSON cannot be read; ${advice}`);
   else problems.report('malformed', atLine(line), `the JSON syntax breaks here; ${advice}`);

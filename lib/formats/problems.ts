@@ -16,6 +16,11 @@ export function atElement(element: string, line?: number): Where {
   return line === undefined ? { element, label: element } : { element, line, label: `${element} on line ${line}` };
 }
 
+/** A part of an element, at the same place: `edges[3]` → `edges[3].source`. */
+export function within(where: Where, part: string): Where {
+  return atElement(`${where.element ?? where.label}.${part}`, where.line);
+}
+
 export function problem(code: ProblemCode, where: Where | undefined, text: string, column?: string): ImportProblem {
   const p: ImportProblem = { code, message: where ? `${where.label}: ${text}` : capitalise(text) };
   if (where?.line !== undefined) p.line = where.line;

@@ -27,9 +27,9 @@ describe('JSON import', () => {
 
   it('names the edge index for weight problems', () => {
     const result = json({ edges: [{ source: 'a', target: 'b', weight: 1 }, { source: 'b', target: 'c', weight: 'abc' }, { source: 'c', target: 'a', weight: -3 }] });
-    expect(onlyProblem(result, 'not-a-number')).toMatchObject({ element: 'edges[1]' });
-    expect(onlyProblem(result, 'not-a-number').message).toMatch(/^edges\[1\]: weight 'abc' is not a number/);
-    expect(onlyProblem(result, 'weight-not-positive').message).toMatch(/^edges\[2\]: weight '-3' is negative/);
+    expect(onlyProblem(result, 'not-a-number')).toMatchObject({ element: 'edges[1]', line: 8 });
+    expect(onlyProblem(result, 'not-a-number').message).toMatch(/^edges\[1\] on line 8: weight 'abc' is not a number/);
+    expect(onlyProblem(result, 'weight-not-positive').message).toMatch(/^edges\[2\] on line 13: weight '-3' is negative/);
   });
 
   it('catches 1e309, which JSON.parse turns into Infinity', () => {
@@ -42,12 +42,12 @@ describe('JSON import', () => {
   it('refuses null, booleans and objects as weights', () => {
     const result = json({ edges: [{ source: 'a', target: 'b', weight: null }, { source: 'b', target: 'c', weight: true }] });
     expect(onlyProblem(result, 'empty-weight').element).toBe('edges[0]');
-    expect(onlyProblem(result, 'not-a-number').message).toMatch(/^edges\[1\]: weight must be a number such as 0.75, found boolean true/);
+    expect(onlyProblem(result, 'not-a-number').message).toMatch(/^edges\[1\] on line 8: weight must be a number such as 0.75, found boolean true/);
   });
 
   it('reports a missing field with the keys the edge does have', () => {
     const p = onlyProblem(json({ edges: [{ source: 'a', target: 'b', w8: 1 }] }), 'missing-field');
-    expect(p.message).toMatch(/^edges\[0\]: no 'weight' field \(it has 'source', 'target', 'w8'\)/);
+    expect(p.message).toMatch(/^edges\[0\] on line 3: no 'weight' field \(it has 'source', 'target', 'w8'\)/);
   });
 
   it('reports a name that is not text or a number by its path', () => {
@@ -58,12 +58,12 @@ describe('JSON import', () => {
   it('refuses an edge whose end is not in the node list', () => {
     const p = onlyProblem(json({ nodes: ['a', 'b'], edges: [{ source: 'a', target: 'b', weight: 1 }, { source: 'b', target: 'pump-x', weight: 1 }] }), 'unknown-node');
     expect(p.element).toBe('edges[1]');
-    expect(p.message).toMatch(/^edges\[1\]: the target 'pump-x' is not in the file's node list/);
+    expect(p.message).toMatch(/^edges\[1\] on line 12: the target 'pump-x' is not in the file's node list/);
   });
 
   it('refuses a node declared twice, naming both entries', () => {
     const p = onlyProblem(json({ nodes: ['a', { id: 'b' }, 'b'], edges: [{ source: 'a', target: 'b', weight: 1 }] }), 'duplicate-node');
-    expect(p.message).toMatch(/^nodes\[2\]: node 'b' is already declared at nodes\[1\]/);
+    expect(p.message).toMatch(/^nodes\[2\] on line 7: node 'b' is already declared at nodes\[1\] on line 4/);
   });
 
   it('counts a node list against the node limit', () => {
@@ -73,7 +73,7 @@ describe('JSON import', () => {
 
   it('names the duplicate edge entries', () => {
     const p = onlyProblem(json({ edges: [{ source: 'a', target: 'b', weight: 1 }, { source: 'a', target: 'b', weight: 2 }] }), 'duplicate-edge');
-    expect(p.message).toMatch(/^edges\[1\]: .*already given at edges\[0\]/);
+    expect(p.message).toMatch(/^edges\[1\] on line 8: .*already given at edges\[0\] on line 3/);
   });
 
   it('reports a syntax error with the line it is on', () => {
@@ -81,6 +81,16 @@ describe('JSON import', () => {
     const p = onlyProblem(parseEdgeList(text, { format: 'json' }), 'malformed');
     expect(p.line).toBe(3);
     expect(p.message).toMatch(/^line 3: the JSON syntax breaks here/);
+  });
+
+  it('finds the line of a trailing comma, whatever the engine says', () => {
+    const text = '{\n  "edges": [\n    { "source": "a", "target": "b", "weight": 1 },\n  ]\n}\n';
+    expect(onlyProblem(parseEdgeList(text, { format: 'json' }), 'malformed').line).toBe(4);
+  });
+
+  it('names the line of a single edge in a compact file', () => {
+    const text = '{"edges":[\n{"source":"a","target":"b","weight":1},\n{"source":"b","target":"b","weight":1}]}';
+    expect(onlyProblem(parseEdgeList(text, { format: 'json' }), 'self-loop')).toMatchObject({ element: 'edges[1]', line: 3 });
   });
 
   it.each([

@@ -5,6 +5,8 @@
  */
 import fc from 'fast-check';
 import { PROBLEM_CODES, PROBLEM_LIST_CAP, parseEdgeList, type Edge, type ImportFormat } from '../../../lib/formats';
+// Internal, imported directly: JSON line numbers rest on the scanner agreeing with the engine.
+import { scanJson } from '../../../lib/formats/json-scan';
 
 const name = fc.stringMatching(/^[a-z][a-z0-9 _.-]{0,15}[a-z0-9]$/);
 const weight = fc.double({ min: 1e-9, max: 1e9, noNaN: true, noDefaultInfinity: true });
@@ -67,5 +69,29 @@ describe('robustness', () => {
       }),
       { numRuns: 300 },
     );
+  });
+});
+
+describe('JSON scanner agrees with JSON.parse', () => {
+  const accepts = (text: string) => {
+    try {
+      JSON.parse(text);
+      return true;
+    } catch {
+      return false;
+    }
+  };
+
+  it('accepts everything JSON.stringify writes', () => {
+    fc.assert(fc.property(fc.jsonValue(), fc.constantFrom(0, 2), (value, indent) => {
+      expect(scanJson(JSON.stringify(value, null, indent)).errorAt).toBeUndefined();
+    }), { numRuns: 300 });
+  });
+
+  it('rejects exactly what JSON.parse rejects', () => {
+    const pieces = fc.constantFrom('{', '}', '[', ']', ',', ':', '"a"', '"\\u00e9"', '"\\x"', '1', '-0.5e3', '01', 'true', 'nul', ' ', '\n', '"edges"');
+    fc.assert(fc.property(fc.array(pieces, { maxLength: 20 }).map((a) => a.join('')), (text) => {
+      expect(scanJson(text).errorAt === undefined).toBe(accepts(text));
+    }), { numRuns: 1000 });
   });
 });
