@@ -1,7 +1,7 @@
 /**
  * Collecting problems without stopping at the first, and without letting a
  * 20,000-line file of mistakes produce 20,000 entries: only the first
- * PROBLEM_LIST_CAP are kept, the rest are counted and summarised.
+ * PROBLEM_LIST_CAP (by line) are listed, the rest are counted and summarised.
  */
 import { PROBLEM_LIST_CAP, type ImportProblem, type ProblemCode } from './types';
 
@@ -29,24 +29,27 @@ export function problem(code: ProblemCode, where: Where | undefined, text: strin
   return p;
 }
 
+/**
+ * Problems come from two passes (the format reader, then the shared checks),
+ * so they are ordered by line when listed. Memory stays bounded: once the
+ * list holds several times the cap, it is sorted and trimmed to the cap.
+ */
 export class ProblemList {
-  private kept: ImportProblem[] = [];
+  private entries: { key: number; seq: number; problem: ImportProblem }[] = [];
   private dropped = 0;
+  private seq = 0;
 
   constructor(private readonly cap: number = PROBLEM_LIST_CAP) {}
 
-  add(p: ImportProblem): void {
-    if (this.kept.length < this.cap) this.kept.push(p);
-    else this.dropped += 1;
+  /** Problems without a line (whole-file ones) sort before all lines. */
+  add(p: ImportProblem, key: number = p.line ?? 0): void {
+    this.entries.push({ key, seq: this.seq++, problem: p });
+    if (this.entries.length >= this.cap * 4) this.trim();
   }
 
   /** For the few problems (limits) that matter more than their place in the file. */
   addFirst(p: ImportProblem): void {
-    this.kept.unshift(p);
-    if (this.kept.length > this.cap) {
-      this.kept.pop();
-      this.dropped += 1;
-    }
+    this.add(p, -1);
   }
 
   report(code: ProblemCode, where: Where | undefined, text: string, column?: string): void {
@@ -54,19 +57,29 @@ export class ProblemList {
   }
 
   get size(): number {
-    return this.kept.length + this.dropped;
+    return this.entries.length + this.dropped;
   }
 
-  /** The kept problems, plus one closing entry that says how many were left out. */
+  /** The first problems in file order, plus one closing entry that says how many were left out. */
   list(noun = 'problems'): ImportProblem[] {
-    if (this.dropped === 0) return [...this.kept];
+    this.trim();
+    const kept = this.entries.map((e) => e.problem);
+    if (this.dropped === 0) return kept;
     return [
-      ...this.kept,
+      ...kept,
       {
         code: 'too-many-problems',
-        message: `…and ${this.dropped} more ${noun} not listed here. Fix the ones above and import again to see the rest.`,
+        message: `…and ${this.dropped.toLocaleString('en-US')} more ${noun} not listed here. Fix the ones above and import again to see the rest.`,
       },
     ];
+  }
+
+  private trim(): void {
+    this.entries.sort((a, b) => a.key - b.key || a.seq - b.seq);
+    if (this.entries.length > this.cap) {
+      this.dropped += this.entries.length - this.cap;
+      this.entries.length = this.cap;
+    }
   }
 }
 

@@ -111,21 +111,26 @@ describe('both directions for files without a direction flag', () => {
 
 describe('every problem at once', () => {
   it('lists problems from many lines in file order', () => {
-    const result = csv(['a,b,1', 'b,b,1', 'c,d,abc', 'e,f,-2', 'a,b,3', ',g,1']);
+    // Row-shape problems are found while reading and the rest afterwards; the list is still in line order.
+    const result = csv(['a,b,1', 'b,b,1', 'c,d,abc', 'x,y', 'e,f,-2', 'a,b,3', ',g,1', 'z']);
     expect(problemsOf(result).map((p) => [p.code, p.line])).toEqual([
       ['self-loop', 3],
       ['not-a-number', 4],
-      ['weight-not-positive', 5],
-      ['duplicate-edge', 6],
-      ['empty-name', 7],
+      ['field-count', 5],
+      ['weight-not-positive', 6],
+      ['duplicate-edge', 7],
+      ['empty-name', 8],
+      ['field-count', 9],
     ]);
   });
 
   it('caps a long list at 200 and says how many more there are', () => {
-    const rows = Array.from({ length: 1000 }, (_, i) => `n${i},m${i},bad`);
+    // Every fifth row is cut short (found by the reader); the others have bad weights (found later).
+    const rows = Array.from({ length: 1000 }, (_, i) => (i % 5 === 4 ? `n${i}` : `n${i},m${i},bad`));
     const problems = problemsOf(csv(rows));
     expect(problems).toHaveLength(201);
-    expect(problems[199]).toMatchObject({ code: 'not-a-number', line: 201 });
+    expect(problems.slice(0, 200).map((p) => p.line)).toEqual(Array.from({ length: 200 }, (_, i) => i + 2));
+    expect(problems[4]).toMatchObject({ code: 'field-count', line: 6 });
     expect(problems[200].code).toBe('too-many-problems');
     expect(problems[200].message).toContain('800 more problems');
   });
