@@ -1,0 +1,315 @@
+/**
+ * Edge sweeps: for each edge and sign, recompute λ2 exactly along the ε ladder, follow its
+ * identity, estimate the noise floor, classify the response and turn it into a weight tolerance.
+ *
+ * Each point is a full eigen-solve of L + ε·∂L_e — never a first-order estimate — because the
+ * interesting edges are precisely those where first order fails (λ2 defective or nearly so).
+ *
+ * Identity: as ε grows another eigenvalue may take over the least real part. Δ would then describe
+ * that eigenvalue, not λ2's branches, and a fit through both is meaningless. Every perturbed
+ * eigenvalue is matched to its nearest baseline eigenvalue (conjugates identified); a point is
+ * "tracked" while some eigenvalue attaining the least real part matches a branch of the λ2 cluster.
+ * Untracked points are dropped from the fit (but still count for the tolerance budget, since the
+ * convergence rate is whatever the least real part is).
+ */
+import type {
+  AuditResult,
+  EdgeResult,
+  FirstOrderSensitivity,
+  PerturbationTerm,
+  SignResponse,
+  SpectralBaseline,
+  SpectralNetwork,
+  SpectralOptions,
+  SweepHooks,
+  SweepSign,
+  ToleranceBudget,
+  BudgetLimit,
+} from './types';
+import { resolveOptions } from './options';
+import { SpectralInputError, SweepCancelledError } from './errors';
+import { edgeSlots, type EdgeSlot } from './laplacian';
+import { PerturbationWorkspace, foldedDistance, lambda2Of, leastRealIndex, zeroIndexOf, type EntryTerm } from './spectrum';
+import { UNIT_ROUNDOFF } from './cluster';
+import { conditionFloor, robustFloors } from './noise-floor';
+import { ladderMagnitudes, signedLadder } from './ladder';
+import { analyseSign, type ResponseLaws } from './classify';
+import { confirmBudget, predictBudget, type SignTrace } from './tolerance';
+import { sensitivityOf } from './sensitivity';
+import { analyseBaseline, matrixScale } from './baseline';
+
+interface SweepContext {
+  baseline: SpectralBaseline;
+  workspace: PerturbationWorkspace;
+  branchSet: Set<number>;
+  slots: EdgeSlot[];
+}
+
+/** One workspace per baseline object (a worker reuses it across the edges it is given). */
+const contexts = new WeakMap<SpectralBaseline, { network: SpectralNetwork; context: SweepContext }>();
+
+function contextFor(network: SpectralNetwork, baseline: SpectralBaseline): SweepContext {
+  const cached = contexts.get(baseline);
+  if (cached && cached.network === network) return cached.context;
+  if (network.nodes.length !== baseline.n) {
+    throw new SpectralInputError('network and baseline disagree on the number of nodes');
+  }
+  const context: SweepContext = {
+    baseline,
+    workspace: new PerturbationWorkspace(baseline.laplacian, baseline.n),
+    branchSet: new Set(baseline.branches),
+    slots: edgeSlots(network, baseline.convention),
+  };
+  contexts.set(baseline, { network, context });
+  return context;
+}
+
+interface PointEvaluation {
+  /** Re λ2 of the perturbed matrix (least real part, zero set aside). */
+  re: number;
+  tracked: boolean;
+  /** Raw solver-error estimate (NaN when not computed). */
+  raw: number;
+}
+
+function evaluatePoint(ctx: SweepContext, terms: EntryTerm[], eps: number, withFloor: boolean): PointEvaluation {
+  const { baseline, workspace, branchSet } = ctx;
+  const values = workspace.solve(terms, eps);
+  const z = zeroIndexOf(values);
+  const l = leastRealIndex(values, z);
+  const minRe = values.re[l];
+  const tie = 1e3 * UNIT_ROUNDOFF * matrixScale(baseline.maxDegree);
+  const spectrum = baseline.spectrum;
+  let tracked = false;
+  for (let j = 0; j < values.re.length && !tracked; j++) {
+    if (j === z || values.re[j] > minRe + tie) continue;
+    let nearest = -1;
+    let best = Infinity;
+    for (let k = 0; k < spectrum.length; k++) {
+      if (k === baseline.zeroIndex) continue;
+      const d = foldedDistance(values.re[j], values.im[j], spectrum[k].re, spectrum[k].im);
+      if (d < best) {
+        best = d;
+        nearest = k;
+      }
+    }
+    if (branchSet.has(nearest)) tracked = true;
+  }
+  let raw = NaN;
+  if (withFloor) {
+    if (baseline.transposeFloor) {
+      const other = lambda2Of(workspace.solve(terms, eps, true));
+      raw = foldedDistance(values.re[l], values.im[l], other.re, other.im);
+    } else {
+      raw = conditionFloor((baseline.firstOrder as NonNullable<SpectralBaseline['firstOrder']>).condition, baseline.normF, baseline.n);
+    }
+  }
+  return { re: minRe, tracked, raw };
+}
+
+function entryTerms(ctx: SweepContext, terms: PerturbationTerm[], edgeCount: number): EntryTerm[] {
+  return terms.map(({ edgeIndex, scale }) => {
+    if (!Number.isInteger(edgeIndex) || edgeIndex < 0 || edgeIndex >= edgeCount) {
+      throw new SpectralInputError(`edge index ${edgeIndex} is out of range`);
+    }
+    const { row, col } = ctx.slots[edgeIndex];
+    return { row, col, scale };
+  });
+}
+
+/** The response of λ2 to a weight change along `terms`, on both signs, with its budget. */
+export interface PerturbationAudit {
+  sensitivity: FirstOrderSensitivity | null;
+  plus: SignResponse | null;
+  minus: SignResponse | null;
+  budget: ToleranceBudget;
+}
+
+function mergedOptions(baseline: SpectralBaseline, options?: SpectralOptions) {
+  const opts = resolveOptions({ ...baseline.options, ...(options ?? {}) });
+  if (opts.convention !== baseline.convention) {
+    throw new SpectralInputError('options ask for a different convention than the baseline was built with');
+  }
+  return opts;
+}
+
+/**
+ * Audit an arbitrary weight change ε·Σ scale·∂L_e (e.g. both directions of an undirected link).
+ * The minus side is cut at half the smallest positive weight involved; with only weight-0 edges
+ * involved it is a formal probe and kept whole.
+ */
+export function auditPerturbation(
+  network: SpectralNetwork,
+  baseline: SpectralBaseline,
+  terms: PerturbationTerm[],
+  options?: SpectralOptions,
+): PerturbationAudit {
+  const opts = mergedOptions(baseline, options);
+  const ctx = contextFor(network, baseline);
+  if (terms.length === 0) throw new SpectralInputError('a perturbation needs at least one edge');
+  const entries = entryTerms(ctx, terms, network.edges.length);
+  const weights = terms.map((t) => network.edges[t.edgeIndex].weight);
+  const positive = weights.filter((w) => w > 0);
+  const weight = positive.length ? Math.min(...positive) : 0;
+  const probe = positive.length === 0;
+  const ladderScale = baseline.meanWeight > 0 ? baseline.meanWeight : 1;
+  const magnitudes = ladderMagnitudes(opts.ladder, ladderScale);
+  const floorMinimum = Math.max(baseline.baselineNoise, 4 * UNIT_ROUNDOFF * baseline.normF);
+
+  const responses: Partial<Record<SweepSign, SignResponse>> = {};
+  const traces: Partial<Record<SweepSign, SignTrace>> = {};
+  for (const sign of opts.signs) {
+    const { eps, truncated } = signedLadder(magnitudes, sign, weight);
+    const evals = eps.map((e) => evaluatePoint(ctx, entries, e, true));
+    const delta = evals.map((p) => p.re - baseline.baselineRe);
+    const raw = evals.map((p) => (p.tracked ? p.raw : NaN));
+    const floor = robustFloors(raw, opts.floorSafety, floorMinimum);
+    const { response, laws } = analyseSign({
+      eps,
+      delta,
+      floor,
+      tracked: evals.map((p) => p.tracked),
+      truncated,
+      probe,
+    });
+    responses[sign] = response;
+    traces[sign] = {
+      magnitudes: eps.map(Math.abs),
+      absDelta: delta.map(Math.abs),
+      laws: laws as ResponseLaws,
+      flat: response.class === 'flat',
+    };
+  }
+  const plus = responses.plus ?? null;
+  const minus = responses.minus ?? null;
+  if (plus && minus && plus.class !== minus.class) {
+    plus.flags.push('sign-change');
+    minus.flags.push('sign-change');
+  }
+
+  const sensitivity = baseline.firstOrder ? sensitivityOf(baseline.firstOrder, entries) : null;
+  const budget = toleranceBudget(ctx, entries, opts.tolerance, traces, weight, probe, ladderScale);
+  return { sensitivity, plus, minus, budget };
+}
+
+function toleranceBudget(
+  ctx: SweepContext,
+  entries: EntryTerm[],
+  tau: number,
+  traces: Partial<Record<SweepSign, SignTrace>>,
+  weight: number,
+  probe: boolean,
+  ladderScale: number,
+): ToleranceBudget {
+  const { baseline } = ctx;
+  const allowed = tau * baseline.baselineRe;
+  const relative = (eps: number) => (weight > 0 ? eps / weight : null);
+  if (!baseline.rooted || !(allowed > 0)) {
+    return {
+      eps: 0,
+      relative: relative(0),
+      limitedBy: 'not-rooted',
+      predicted: { plus: null, minus: null },
+      confirmed: true,
+      checks: 0,
+      allowedDelta: Math.max(allowed, 0),
+    };
+  }
+  const caps = { plus: Math.max(weight, ladderScale), minus: weight };
+  const sides: SweepSign[] = (['plus', 'minus'] as SweepSign[]).filter(
+    (s) => traces[s] !== undefined && !(s === 'minus' && probe),
+  );
+  if (sides.length === 0) sides.push('plus');
+  const predicted: { plus: number | null; minus: number | null } = { plus: null, minus: null };
+  let candidate = Infinity;
+  let limitedBy: BudgetLimit = 'cap';
+  for (const s of sides) {
+    const trace = traces[s] ?? { magnitudes: [], absDelta: [], laws: { small: null, large: null, sign: 1 }, flat: false };
+    const p = predictBudget(trace, allowed, caps[s]);
+    predicted[s] = p;
+    if (p < candidate) {
+      candidate = p;
+      limitedBy = p >= caps[s] ? (s === 'minus' ? 'weight' : 'cap') : s;
+    }
+  }
+  let lastFailure: SweepSign | null = null;
+  const passes = (eps: number): boolean => {
+    for (const s of sides) {
+      const signed = s === 'plus' ? eps : -eps;
+      const { re } = evaluatePoint(ctx, entries, signed, false);
+      // A relative slack of 1e-9 keeps a prediction that lands exactly on the limit from failing by rounding.
+      if (!(Math.abs(re - baseline.baselineRe) <= allowed * (1 + 1e-9))) {
+        lastFailure = s;
+        return false;
+      }
+    }
+    return true;
+  };
+  const outcome = confirmBudget(candidate, passes, 1.01);
+  if (!outcome.confirmed && lastFailure) limitedBy = lastFailure;
+  return {
+    eps: outcome.eps,
+    relative: relative(outcome.eps),
+    limitedBy,
+    predicted,
+    confirmed: outcome.confirmed,
+    checks: outcome.checks,
+    allowedDelta: allowed,
+  };
+}
+
+/** Audit one edge against a baseline (what a worker runs for each edge of its chunk). */
+export function auditEdge(
+  network: SpectralNetwork,
+  baseline: SpectralBaseline,
+  edgeIndex: number,
+  options?: SpectralOptions,
+): EdgeResult {
+  const edge = network.edges[edgeIndex];
+  if (!edge) throw new SpectralInputError(`edge index ${edgeIndex} is out of range`);
+  const result = auditPerturbation(network, baseline, [{ edgeIndex, scale: 1 }], options);
+  return {
+    index: edgeIndex,
+    source: edge.source,
+    target: edge.target,
+    weight: edge.weight,
+    tolerance: result.budget.eps,
+    budget: result.budget,
+    sensitivity: result.sensitivity,
+    plus: result.plus,
+    minus: result.minus,
+  };
+}
+
+/** Shape the top of an audit document from a baseline and finished edge results. */
+export function assembleAudit(baseline: SpectralBaseline, edges: EdgeResult[], edgeCount: number): AuditResult {
+  return {
+    convention: baseline.convention,
+    tolerance: baseline.options.tolerance,
+    ladder: baseline.options.ladder,
+    nodeCount: baseline.n,
+    edgeCount,
+    meanWeight: baseline.meanWeight,
+    lambda2: baseline.lambda2,
+    rooted: baseline.rooted,
+    roots: baseline.roots,
+    cutOff: baseline.cutOff,
+    cluster: { size: baseline.cluster.size, spread: baseline.cluster.spread, resolved: baseline.cluster.resolved },
+    condition: baseline.firstOrder ? baseline.firstOrder.condition : null,
+    spectrum: baseline.spectrum,
+    edges,
+  };
+}
+
+/** Whole-network audit, edge by edge, with progress and cancellation between edges. */
+export function auditNetwork(network: SpectralNetwork, options: SpectralOptions = {}, hooks: SweepHooks = {}): AuditResult {
+  const baseline = analyseBaseline(network, options);
+  const total = network.edges.length;
+  const edges: EdgeResult[] = [];
+  for (let i = 0; i < total; i++) {
+    if (hooks.isCancelled?.()) throw new SweepCancelledError(i, total);
+    edges.push(auditEdge(network, baseline, i));
+    hooks.onProgress?.(i + 1, total);
+  }
+  return assembleAudit(baseline, edges, total);
+}
