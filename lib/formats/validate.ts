@@ -29,7 +29,7 @@ export function validateRows(raw: RawImport, settings: ValidateSettings, problem
     const what = role === 'node' ? 'the node name' : `the ${role} name`;
     if (name === '') problems.report('empty-name', where, `${what} is empty; every edge needs both end nodes named`, col);
     else if (name.length > MAX_NAME_LENGTH) {
-      problems.report('name-too-long', where, `${what} is ${name.length} characters long; names may have at most ${MAX_NAME_LENGTH}`, col);
+      problems.report('name-too-long', where, `${what} is ${name.length.toLocaleString('en-US')} characters long; names may have at most ${MAX_NAME_LENGTH}`, col);
     } else if (/[\u0000-\u001f\u007f]/.test(name)) {
       problems.report('bad-name', where, `${what} ${quote(name)} contains a line break, tab or other control character; keep names on one line`, col);
     } else return name;

@@ -55,7 +55,8 @@ export function parseXml(text: string, problems: ProblemList): ParsedXml | undef
   } catch (err) {
     // The validator passed, so this is a limit such as nesting depth; still the user's file to fix.
     const detail = err instanceof Error ? err.message : String(err);
-    problems.report('malformed', undefined, `the XML could not be read (${detail})`);
+    const advice = /nest/i.test(detail) ? 'GraphML needs only a few levels of nesting' : 'check the markup';
+    problems.report('malformed', undefined, `the XML could not be read (${detail}); ${advice}, and export the network again`);
     return undefined;
   }
   const root = Object.keys(doc).find((k) => !k.startsWith('?') && !k.startsWith('#')) ?? '';

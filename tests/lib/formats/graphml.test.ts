@@ -135,6 +135,11 @@ describe('GraphML structure problems', () => {
     expect(p.message).toMatch(/^line 6: the XML is not well-formed here \(.*line 4/);
   });
 
+  it('refuses absurdly deep nesting without exhausting the stack', () => {
+    const text = `<graphml>${'<x>'.repeat(20000)}${'</x>'.repeat(20000)}</graphml>`;
+    expect(onlyProblem(graphml(text), 'malformed').message).toContain('levels of nesting');
+  });
+
   it('calls XML with another root the wrong format', () => {
     const p = onlyProblem(graphml('<?xml version="1.0"?>\n<svg width="10"><rect/></svg>'), 'wrong-format');
     expect(p.message).toContain('root element is <svg>, not <graphml>');
