@@ -1,24 +1,22 @@
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import type { Knex } from 'knex';
+import { parseEdgeList } from '../lib/formats';
 import { demoNetworks } from './data/demo';
 
-/** Demo networks as first versions; runs only on an empty networks table. */
+/**
+ * Demo networks as first versions, read through the same parser an upload
+ * uses; runs only on an empty networks table.
+ */
 export async function seed(knex: Knex): Promise<void> {
   const existing = await knex('networks').count<{ n: number }[]>({ n: '*' });
   if (Number(existing[0].n) > 0) return;
   const analyst = await knex('users').where({ email: 'analyst@gannet-sound.test' }).first('id');
   for (const net of demoNetworks) {
     const text = readFileSync(path.join(__dirname, 'data', net.file), 'utf8');
-    const edges = text
-      .trim()
-      .split(/\r?\n/)
-      .slice(1)
-      .map((line) => {
-        const [source, target, weight] = line.split(',');
-        return { source, target, weight: Number(weight) };
-      });
-    const nodes = [...new Set(edges.flatMap((e) => [e.source, e.target]))];
+    const parsed = parseEdgeList(text, { format: 'csv' });
+    if (!parsed.ok) throw new Error(`demo network ${net.file}: ${parsed.problems[0].message}`);
+    const { nodes, edges } = parsed.edgeList;
     const [row] = await knex('networks')
       .insert({ name: net.name, description: net.description, convention: 'in', created_by: analyst?.id ?? null })
       .returning('id');

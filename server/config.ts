@@ -41,7 +41,7 @@ export class ConfigError extends Error {
  * Reads and validates the environment. A missing session secret is generated
  * once and kept beside the database so sessions survive restarts.
  */
-export function loadConfig(env: NodeJS.ProcessEnv = process.env, cwd = process.cwd()): Config {
+export function loadConfig(env: Record<string, string | undefined> = process.env, cwd = process.cwd()): Config {
   const parsed = envSchema.safeParse(env);
   if (!parsed.success) {
     throw new ConfigError(

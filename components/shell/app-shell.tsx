@@ -13,7 +13,7 @@ export function AppShell({ children }: { children: ReactNode }) {
   return (
     <View className="flex-1 flex-col bg-paper lg:flex-row">
       <SideRail />
-      <View accessibilityRole="main" className="flex-1">
+      <View role="main" className="flex-1">
         {children}
       </View>
       <DetailPane />

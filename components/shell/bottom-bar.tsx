@@ -6,7 +6,9 @@ import { NavLink } from './nav-link';
 export function BottomBar() {
   return (
     <View
-      accessibilityRole="tablist"
+      role="navigation"
+      aria-label="Sections"
+      testID="bottom-bar"
       className="flex-row border-t border-rule bg-paper-card lg:hidden"
       style={{ paddingBottom: 4 }}
     >

@@ -8,7 +8,7 @@ import { Text } from '@/components/ui/text';
 export function DetailPane() {
   return (
     <View
-      accessibilityRole="complementary"
+      role="complementary"
       accessibilityLabel="Details"
       className="hidden w-80 border-l border-rule bg-paper-card p-6 xl:w-96 lg:flex"
     >

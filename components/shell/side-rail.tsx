@@ -7,7 +7,7 @@ import { NavLink } from './nav-link';
 /** Wide-screen navigation: a quiet rail on the left, shown from 1024 px up. */
 export function SideRail() {
   return (
-    <View accessibilityRole="navigation" className="hidden w-60 border-r border-rule bg-paper-card px-4 py-6 lg:flex">
+    <View role="navigation" aria-label="Sections" testID="side-rail" className="hidden w-60 border-r border-rule bg-paper-card px-4 py-6 lg:flex">
       <BrandMark />
       <Text className="mb-6 mt-1 text-xs text-ink-faint">weight tolerances for tuned networks</Text>
       <View className="gap-1">

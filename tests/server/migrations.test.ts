@@ -1,7 +1,7 @@
 import argon2 from 'argon2';
 import type { Knex } from 'knex';
 import { demoNetworks, demoUsers } from '../../seeds/data/demo';
-import { freshDatabase } from './support/test-db';
+import { expectRefusal, freshDatabase } from './support/test-db';
 
 describe('migrations and demo seeds', () => {
   let db: Knex;
@@ -39,15 +39,15 @@ describe('migrations and demo seeds', () => {
 
   test('a stored network version cannot be edited (database trigger)', async () => {
     const v = await db('network_versions').first('id');
-    await expect(db('network_versions').where({ id: v.id }).update({ edges_json: '{}' })).rejects.toThrow(/immutable/);
+    await expectRefusal(db('network_versions').where({ id: v.id }).update({ edges_json: '{}' }), /immutable/);
   });
 
   test('an unknown role is refused by the database', async () => {
     const u = await db('users').first('id');
-    await expect(db('user_roles').insert({ user_id: u.id, role: 'overlord' })).rejects.toThrow(/unknown role/);
+    await expectRefusal(db('user_roles').insert({ user_id: u.id, role: 'overlord' }), /unknown role/);
   });
 
   test('the database runs with foreign keys enforced', async () => {
-    await expect(db('user_roles').insert({ user_id: 99999, role: 'admin' })).rejects.toThrow(/FOREIGN KEY/);
+    await expectRefusal(db('user_roles').insert({ user_id: 99999, role: 'admin' }), /FOREIGN KEY/);
   });
 });

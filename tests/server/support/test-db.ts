@@ -15,3 +15,19 @@ export async function freshDatabase(options: { seed?: boolean } = {}): Promise<K
   if (options.seed) await db.seed.run();
   return db;
 }
+
+/**
+ * Asserts that a database call is refused with a message matching `pattern`.
+ * better-sqlite3's native binding keeps the error class of the first test
+ * file that loaded it in a jest worker, so `toThrow` (an instanceof check)
+ * misses errors in later files; the message is what matters here anyway.
+ */
+export async function expectRefusal(call: PromiseLike<unknown>, pattern: RegExp): Promise<void> {
+  let message: string | null = null;
+  try {
+    await call;
+  } catch (err) {
+    message = String((err as { message?: unknown }).message ?? err);
+  }
+  expect(message).toMatch(pattern);
+}
