@@ -4,6 +4,8 @@ import type { Knex } from 'knex';
 import { createApp } from './app';
 import type { Config } from './config';
 import { migrateToLatest, openDatabase } from './db/connection';
+import { createWorkerPool } from './jobs/pool';
+import { SummaryQueue } from './networks/summaries';
 
 export interface RunningServer {
   url: string;
@@ -20,7 +22,12 @@ export async function startServer(config: Config, options: { seed?: boolean } = 
   const db = openDatabase(config.databaseFile);
   await migrateToLatest(db);
   if (options.seed) await db.seed.run();
-  const app = createApp({ db, config });
+  const jobs = createWorkerPool();
+  const log = (msg: string, err?: unknown) => console.error(`[hairline] ${msg}`, err instanceof Error ? err.message : (err ?? ''));
+  const summaries = new SummaryQueue(db, jobs, log);
+  // Versions stored before a stop still owe their summary.
+  await summaries.resumePending();
+  const app = createApp({ db, config, summaries, log });
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.port, config.host, () => resolve(s));
     s.once('error', reject);
@@ -34,6 +41,8 @@ export async function startServer(config: Config, options: { seed?: boolean } = 
     async close() {
       await new Promise<void>((resolve) => server.close(() => resolve()));
       server.closeAllConnections?.();
+      await jobs.close();
+      await summaries.idle();
       await db.destroy();
     },
   };

@@ -2,7 +2,7 @@ import type { ErrorRequestHandler, RequestHandler } from 'express';
 
 /** The one error envelope every API response uses: { error: { code, message, fields? } }. */
 export interface ErrorBody {
-  error: { code: string; message: string; fields?: Record<string, string> };
+  error: { code: string; message: string; fields?: Record<string, string>; problems?: unknown[] };
 }
 
 /** An error a route means to send: status, a stable code and a sentence a person can act on. */
@@ -12,6 +12,8 @@ export class HttpError extends Error {
     public readonly code: string,
     message: string,
     public readonly fields?: Record<string, string>,
+    /** A list of findings (e.g. every problem of a rejected import), for the client to show in full. */
+    public readonly problems?: unknown[],
   ) {
     super(message);
     this.name = 'HttpError';
@@ -34,6 +36,7 @@ export function errorHandler(log: (msg: string, err: unknown) => void): ErrorReq
     const e = known ?? new HttpError(500, 'internal', 'Something went wrong on the server; it has been logged.');
     const body: ErrorBody = { error: { code: e.code, message: e.message } };
     if (e.fields) body.error.fields = e.fields;
+    if (e.problems) body.error.problems = e.problems;
     res.status(e.status).json(body);
   };
 }
