@@ -16,3 +16,11 @@ export function parseOr400<S extends z.ZodType>(schema: S, value: unknown, where
   const list = Object.entries(fields).map(([k, m]) => `${k}: ${m}`).join('; ');
   throw new HttpError(400, 'invalid-input', `The request ${where} is not valid (${list}).`, fields);
 }
+
+/** Shorthands over parseOr400 for the parts of a request. */
+export const parseBody = <S extends z.ZodType>(schema: S, req: { body?: unknown }): z.infer<S> =>
+  parseOr400(schema, req.body ?? {}, 'body');
+export const parseParams = <S extends z.ZodType>(schema: S, req: { params?: unknown }): z.infer<S> =>
+  parseOr400(schema, req.params ?? {}, 'path');
+export const parseQuery = <S extends z.ZodType>(schema: S, req: { query?: unknown }): z.infer<S> =>
+  parseOr400(schema, req.query ?? {}, 'query');
