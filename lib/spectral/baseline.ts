@@ -109,7 +109,7 @@ export function analyseBaseline(network: SpectralNetwork, options: SpectralOptio
     maxDegree,
     meanWeight,
     ...reach,
-    spectrum: values.re.map((re, i) => ({ re, im: values.im[i] })),
+    spectrum: values.re.map((re, i) => ({ re: re + 0, im: values.im[i] + 0 })),
     zeroIndex,
     lambda2Index,
     lambda2,

@@ -90,9 +90,10 @@ export function sensitivityOf(data: FirstOrderData, terms: EntryTerm[]): FirstOr
     nIm += scale * (z.re[row] * dIm + z.im[row] * dRe);
   }
   const den = pairing.re * pairing.re + pairing.im * pairing.im;
+  // `+ 0` turns a negative zero into a plain one, so results survive a JSON round trip unchanged.
   return {
-    re: (nRe * pairing.re + nIm * pairing.im) / den,
-    im: (nIm * pairing.re - nRe * pairing.im) / den,
+    re: (nRe * pairing.re + nIm * pairing.im) / den + 0,
+    im: (nIm * pairing.re - nRe * pairing.im) / den + 0,
     condition: data.condition,
   };
 }

@@ -45,6 +45,6 @@ export function summariseNetwork(network: SpectralNetwork, options: SpectralOpti
     leaderGroups: reach.leaderGroups,
     lambda2,
     cluster: { size: cluster.size, spread: cluster.spread },
-    spectrum: values.re.map((re, i) => ({ re, im: values.im[i] })),
+    spectrum: values.re.map((re, i) => ({ re: re + 0, im: values.im[i] + 0 })),
   };
 }

@@ -6,8 +6,8 @@
  * interesting edges are precisely those where first order fails (λ2 defective or nearly so).
  *
  * Identity: as ε grows another eigenvalue may take over the least real part. Δ would then describe
- * that eigenvalue, not λ2's branches, and a fit through both is meaningless. Every perturbed
- * eigenvalue is matched to its nearest baseline eigenvalue (conjugates identified); a point is
+ * that eigenvalue, not λ2's branches, and a fit through both is meaningless. Perturbed and baseline
+ * eigenvalues are matched one to one, closest pairs first (conjugates identified); a point is
  * "tracked" while some eigenvalue attaining the least real part matches a branch of the λ2 cluster.
  * Untracked points are dropped from the fit (but still count for the tolerance budget, since the
  * convergence rate is whatever the least real part is).
@@ -72,6 +72,47 @@ interface PointEvaluation {
   raw: number;
 }
 
+/**
+ * Greedy one-to-one matching of perturbed to baseline eigenvalues (closest pairs first, conjugates
+ * identified, the zero set aside on both sides). One-to-one matters: when a branch moves more than
+ * half the gap to a neighbour, nearest-neighbour matching would hand it to the neighbour, although
+ * the neighbour's own perturbed eigenvalue sits right on top of it and claims it first.
+ * Returns true if some eigenvalue with real part ≤ `reLimit` is matched to a branch of λ2.
+ */
+function followsBranch(
+  values: { re: number[]; im: number[] },
+  zero: number,
+  reLimit: number,
+  baseline: SpectralBaseline,
+  branchSet: Set<number>,
+): boolean {
+  const spectrum = baseline.spectrum;
+  const n = values.re.length;
+  const pairs: { d: number; p: number; b: number }[] = [];
+  for (let p = 0; p < n; p++) {
+    if (p === zero) continue;
+    for (let b = 0; b < spectrum.length; b++) {
+      if (b === baseline.zeroIndex) continue;
+      pairs.push({ d: foldedDistance(values.re[p], values.im[p], spectrum[b].re, spectrum[b].im), p, b });
+    }
+  }
+  pairs.sort((x, y) => x.d - y.d);
+  const matchOf = new Int32Array(n).fill(-1);
+  const taken = new Uint8Array(spectrum.length);
+  let left = n - 1;
+  for (const { p, b } of pairs) {
+    if (left === 0) break;
+    if (matchOf[p] !== -1 || taken[b]) continue;
+    matchOf[p] = b;
+    taken[b] = 1;
+    left -= 1;
+  }
+  for (let p = 0; p < n; p++) {
+    if (p !== zero && values.re[p] <= reLimit && branchSet.has(matchOf[p])) return true;
+  }
+  return false;
+}
+
 function evaluatePoint(ctx: SweepContext, terms: EntryTerm[], eps: number, withFloor: boolean): PointEvaluation {
   const { baseline, workspace, branchSet } = ctx;
   const values = workspace.solve(terms, eps);
@@ -79,22 +120,7 @@ function evaluatePoint(ctx: SweepContext, terms: EntryTerm[], eps: number, withF
   const l = leastRealIndex(values, z);
   const minRe = values.re[l];
   const tie = 1e3 * UNIT_ROUNDOFF * matrixScale(baseline.maxDegree);
-  const spectrum = baseline.spectrum;
-  let tracked = false;
-  for (let j = 0; j < values.re.length && !tracked; j++) {
-    if (j === z || values.re[j] > minRe + tie) continue;
-    let nearest = -1;
-    let best = Infinity;
-    for (let k = 0; k < spectrum.length; k++) {
-      if (k === baseline.zeroIndex) continue;
-      const d = foldedDistance(values.re[j], values.im[j], spectrum[k].re, spectrum[k].im);
-      if (d < best) {
-        best = d;
-        nearest = k;
-      }
-    }
-    if (branchSet.has(nearest)) tracked = true;
-  }
+  const tracked = followsBranch(values, z, minRe + tie, baseline, branchSet);
   let raw = NaN;
   if (withFloor) {
     if (baseline.transposeFloor) {
@@ -245,7 +271,9 @@ function toleranceBudget(
     }
     return true;
   };
-  const outcome = confirmBudget(candidate, passes, 1.01);
+  // Nudge the prediction just inside the limit: a law that lands exactly on it would otherwise
+  // fail the direct check by rounding and cost a bisection.
+  const outcome = confirmBudget(candidate * (1 - 1e-6), passes, 1.01);
   if (!outcome.confirmed && lastFailure) limitedBy = lastFailure;
   return {
     eps: outcome.eps,
