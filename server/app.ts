@@ -1,9 +1,12 @@
 import express, { type Express } from 'express';
 import type { Knex } from 'knex';
 import { DEFAULT_LIMITS } from '../lib/formats';
+import { mountAccountRoutes, mountIdentity } from './auth/mount';
 import type { Config } from './config';
 import { healthRouter } from './health/router';
 import { apiNotFound, errorHandler } from './http/errors';
+import { securityHeaders } from './http/security-headers';
+import { noMailer, smtpMailer, type Mailer } from './mail/mailer';
 import { createInlinePool } from './jobs/pool';
 import { MAX_UPLOAD_BYTES, networksRouter } from './networks/router';
 import { SummaryQueue } from './networks/summaries';
@@ -13,20 +16,31 @@ export interface AppDeps {
   db: Knex;
   config: Config;
   log?: (msg: string, err?: unknown) => void;
+  /** Outgoing mail; startServer passes one bound to the running mail fake or relay. */
+  mailer?: Mailer;
+  /** The clock for sessions, links and back-off (tests move it). */
+  now?: () => number;
   /** Background spectrum summaries; tests get one that computes on the calling thread. */
   summaries?: SummaryQueue;
 }
 
 /** Builds the Express app without listening, so supertest can drive it. */
-export function createApp({ db, config, log = defaultLog, summaries }: AppDeps): Express {
+export function createApp({ db, config, log = defaultLog, summaries, mailer, now = Date.now }: AppDeps): Express {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
+  app.use(securityHeaders());
 
   const api = express.Router();
   // A pasted edge list may be large; every other body stays small.
   api.use('/networks/import', express.json({ limit: MAX_UPLOAD_BYTES }));
   api.use(express.json({ limit: '1mb' }));
+  // ── Accounts (issue 4): Origin check, session cookie and API tokens set req.user
+  //    for every route below; then /auth, /users, /tokens and /outbox.
+  const accounts = { db, config, now, mailer: mailer ?? (config.mail.mode === 'smtp' ? smtpMailer(config) : noMailer) };
+  mountIdentity(api, accounts);
+  mountAccountRoutes(api, accounts);
+  // ── end accounts
   api.use(healthRouter(db));
   api.use(
     networksRouter({
@@ -45,5 +59,6 @@ export function createApp({ db, config, log = defaultLog, summaries }: AppDeps):
 }
 
 function defaultLog(msg: string, err?: unknown): void {
-  console.error(`[hairline] ${msg}`, err instanceof Error ? err.stack : (err ?? ''));
+  // Name and message only: stack traces stay out of the logs as well as the responses.
+  console.error(`[hairline] ${msg}`, err instanceof Error ? `${err.name}: ${err.message}` : (err ?? ''));
 }

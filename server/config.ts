@@ -18,6 +18,9 @@ const envSchema = z.object({
   HAIRLINE_SMTP_URL: z.string().regex(/^smtps?:\/\//, 'must start with smtp:// or smtps://').optional(),
   HAIRLINE_MAIL_FROM: z.string().min(3).default('Hairline <hairline@localhost>'),
   HAIRLINE_WEB_ROOT: z.string().min(1).default('dist'),
+  HAIRLINE_SESSION_IDLE_MINUTES: z.coerce.number().int().min(1).max(24 * 60).default(30),
+  HAIRLINE_SESSION_MAX_HOURS: z.coerce.number().int().min(1).max(24 * 30).default(12),
+  HAIRLINE_SIGN_IN_LIMIT: z.coerce.number().int().min(1).max(10_000).default(20),
 });
 
 export interface Config {
@@ -28,6 +31,10 @@ export interface Config {
   publicUrl?: string;
   mail: { mode: 'fake'; fakePort: number; from: string } | { mode: 'smtp'; url: string; from: string };
   webRoot: string;
+  /** Sessions end after this long without a request, and this long after sign-in at the latest. */
+  session: { idleMs: number; absoluteMs: number };
+  /** Sign-in, invitation and reset attempts allowed per client address per 15 minutes. */
+  signInLimit: number;
 }
 
 export class ConfigError extends Error {
@@ -66,6 +73,8 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
         ? { mode: 'smtp', url: e.HAIRLINE_SMTP_URL!, from: e.HAIRLINE_MAIL_FROM }
         : { mode: 'fake', fakePort: e.HAIRLINE_FAKE_SMTP_PORT, from: e.HAIRLINE_MAIL_FROM },
     webRoot: path.resolve(cwd, e.HAIRLINE_WEB_ROOT),
+    session: { idleMs: e.HAIRLINE_SESSION_IDLE_MINUTES * 60_000, absoluteMs: e.HAIRLINE_SESSION_MAX_HOURS * 3_600_000 },
+    signInLimit: e.HAIRLINE_SIGN_IN_LIMIT,
   };
 }
 

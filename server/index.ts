@@ -4,6 +4,8 @@ import type { Knex } from 'knex';
 import { createApp } from './app';
 import type { Config } from './config';
 import { migrateToLatest, openDatabase } from './db/connection';
+import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp';
+import { smtpMailer } from './mail/mailer';
 import { createWorkerPool } from './jobs/pool';
 import { SummaryQueue } from './networks/summaries';
 
@@ -11,6 +13,8 @@ export interface RunningServer {
   url: string;
   db: Knex;
   server: Server;
+  /** The local mail fake's port when HAIRLINE_MAIL=fake. */
+  smtpPort?: number;
   close(): Promise<void>;
 }
 
@@ -27,7 +31,10 @@ export async function startServer(config: Config, options: { seed?: boolean } = 
   const summaries = new SummaryQueue(db, jobs, log);
   // Versions stored before a stop still owe their summary.
   await summaries.resumePending();
-  const app = createApp({ db, config, summaries, log });
+  // Mail (issue 4): in fake mode a loopback SMTP server stores every message in the outbox.
+  const fakeSmtp: FakeSmtp | null = config.mail.mode === 'fake' ? await startFakeSmtp(db, { port: config.mail.fakePort }) : null;
+  const mailer = smtpMailer(config, fakeSmtp?.port);
+  const app = createApp({ db, config, summaries, log, mailer });
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.port, config.host, () => resolve(s));
     s.once('error', reject);
@@ -38,9 +45,11 @@ export async function startServer(config: Config, options: { seed?: boolean } = 
     url: `http://${host}:${port}`,
     db,
     server,
+    smtpPort: fakeSmtp?.port,
     async close() {
       await new Promise<void>((resolve) => server.close(() => resolve()));
       server.closeAllConnections?.();
+      await fakeSmtp?.close();
       await jobs.close();
       await summaries.idle();
       await db.destroy();

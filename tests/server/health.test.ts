@@ -41,7 +41,7 @@ describe('health and routing', () => {
   });
 
   test('an unknown API route gets a JSON 404 in the error envelope', async () => {
-    const res = await request(app).post('/api/v1/no-such-thing').send({});
+    const res = await request(app).post('/api/v1/no-such-thing').set('Host', 'hairline.test').set('Origin', 'http://hairline.test').send({});
     expect(res.status).toBe(404);
     expect(res.headers['content-type']).toMatch(/json/);
     expect(res.body).toEqual({ error: { code: 'not-found', message: 'No API route POST /api/v1/no-such-thing.' } });
