@@ -8,6 +8,8 @@ export class ApiError extends Error {
     public readonly code: string,
     message: string,
     public readonly fields?: Record<string, string>,
+    /** Every finding behind a refusal (e.g. each bad line of an import). */
+    public readonly problems?: Array<{ code: string; message: string; line?: number; element?: string }>,
   ) {
     super(message);
     this.name = 'ApiError';
@@ -28,7 +30,7 @@ export async function apiRequest<S extends z.ZodType>(
     res = await fetch(`/api/v1${path}`, {
       credentials: 'same-origin',
       ...init,
-      headers: { Accept: 'application/json', ...(init.body ? { 'Content-Type': 'application/json' } : {}), ...init.headers },
+      headers: { Accept: 'application/json', ...(typeof init.body === 'string' ? { 'Content-Type': 'application/json' } : {}), ...init.headers },
     });
   } catch {
     throw new ApiError(0, 'network', 'The server could not be reached. Check your connection and try again.');
@@ -36,7 +38,10 @@ export async function apiRequest<S extends z.ZodType>(
   const body: unknown = await res.json().catch(() => null);
   if (!res.ok) {
     const env = errorEnvelopeSchema.safeParse(body);
-    if (env.success) throw new ApiError(res.status, env.data.error.code, env.data.error.message, env.data.error.fields);
+    if (env.success) {
+      const e = env.data.error;
+      throw new ApiError(res.status, e.code, e.message, e.fields, e.problems);
+    }
     throw new ApiError(res.status, 'unexpected', `The server answered ${res.status} without an explanation.`);
   }
   const parsed = schema.safeParse(body);

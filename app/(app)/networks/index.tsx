@@ -1,10 +1,3 @@
-import { ComingSoon } from '@/components/ui/coming-soon';
-import { Screen } from '@/components/ui/screen';
+import { NetworkListScreen } from '@/components/networks/network-list-screen';
 
-export default function NetworksRoute() {
-  return (
-    <Screen kicker="Library" title="Networks">
-      <ComingSoon what="Import CSV, TSV, JSON or GraphML edge lists, keep versions, and see each network's spectrum." />
-    </Screen>
-  );
-}
+export default NetworkListScreen;

@@ -1,0 +1,3 @@
+import { NetworkDetailScreen } from '@/components/networks/network-detail-screen';
+
+export default NetworkDetailScreen;

@@ -1,0 +1,3 @@
+import { ImportScreen } from '@/components/networks/import-screen';
+
+export default ImportScreen;

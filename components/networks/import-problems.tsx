@@ -1,0 +1,29 @@
+import { View } from 'react-native';
+import { Text } from '../ui/text';
+
+export interface ShownProblem {
+  code: string;
+  message: string;
+  line?: number;
+  element?: string;
+}
+
+/** Every problem of a refused import, each with its place, so the file can be fixed in one pass. */
+export function ImportProblems({ title, problems }: { title: string; problems: ShownProblem[] }) {
+  return (
+    <View role="alert" aria-label="Import problems" className="gap-2 rounded-lg border border-rust bg-rust-soft p-4">
+      <Text className="font-bold text-ink">× {title}</Text>
+      {problems.length > 0 ? (
+        <View className="gap-1.5">
+          {problems.map((p, i) => (
+            <View key={i} className="flex-row gap-3 border-t border-rule pt-1.5">
+              <Text className="w-16 font-mono text-xs text-ink-soft">{p.line ? `line ${p.line}` : (p.element ?? '—')}</Text>
+              <Text className="flex-1 text-sm leading-5 text-ink">{p.message}</Text>
+            </View>
+          ))}
+        </View>
+      ) : null}
+      <Text className="text-xs text-ink-soft">Nothing was stored. Fix the file and import it again.</Text>
+    </View>
+  );
+}

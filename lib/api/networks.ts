@@ -1,0 +1,66 @@
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import {
+  importResultSchema,
+  networkDetailSchema,
+  networkListSchema,
+  versionDetailSchema,
+  versionDiffSchema,
+  type ImportRequest,
+} from '../schemas/network';
+import { apiRequest } from './client';
+
+export type NetworkSort = 'name' | 'updated' | 'nodes' | 'lambda2';
+
+export function useNetworks(q: string, sort: NetworkSort) {
+  const params = new URLSearchParams({ sort, ...(q ? { q } : {}) });
+  return useQuery({
+    queryKey: ['networks', q, sort],
+    queryFn: () => apiRequest(networkListSchema, `/networks?${params}`),
+  });
+}
+
+export function useNetwork(id: number) {
+  return useQuery({
+    queryKey: ['network', id],
+    queryFn: () => apiRequest(networkDetailSchema, `/networks/${id}`),
+    enabled: Number.isFinite(id),
+  });
+}
+
+/** Polls while the version's spectrum is still being computed. */
+export function useNetworkVersion(id: number, version: number | undefined) {
+  return useQuery({
+    queryKey: ['network', id, 'version', version],
+    queryFn: () => apiRequest(versionDetailSchema, `/networks/${id}/versions/${version}`),
+    enabled: Number.isFinite(id) && !!version,
+    refetchInterval: (q) => (q.state.data?.summaryState === 'pending' ? 3000 : false),
+  });
+}
+
+export function useVersionDiff(id: number, from: number | undefined, to: number | undefined) {
+  return useQuery({
+    queryKey: ['network', id, 'diff', from, to],
+    queryFn: () => apiRequest(versionDiffSchema, `/networks/${id}/diff?from=${from}&to=${to}`),
+    enabled: !!from && !!to && from !== to,
+  });
+}
+
+export type ImportPayload = { fields: ImportRequest; file?: Blob & { name?: string } };
+
+/** Uploads a file as multipart, or sends pasted text as JSON. */
+export function useImportNetwork() {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: ({ fields, file }: ImportPayload) => {
+      if (!file) return apiRequest(importResultSchema, '/networks/import', { method: 'POST', body: JSON.stringify(fields) });
+      const form = new FormData();
+      for (const [k, v] of Object.entries(fields)) {
+        if (v === undefined || k === 'text') continue;
+        form.append(k, typeof v === 'object' ? JSON.stringify(v) : String(v));
+      }
+      form.append('file', file, file.name ?? 'network.csv');
+      return apiRequest(importResultSchema, '/networks/import', { method: 'POST', body: form });
+    },
+    onSuccess: () => client.invalidateQueries({ queryKey: ['networks'] }),
+  });
+}
