@@ -88,29 +88,42 @@ function followsBranch(
 ): boolean {
   const spectrum = baseline.spectrum;
   const n = values.re.length;
-  const pairs: { d: number; p: number; b: number }[] = [];
-  for (let p = 0; p < n; p++) {
-    if (p === zero) continue;
-    for (let b = 0; b < spectrum.length; b++) {
-      if (b === baseline.zeroIndex) continue;
-      pairs.push({ d: foldedDistance(values.re[p], values.im[p], spectrum[b].re, spectrum[b].im), p, b });
+  const candidates: number[] = [];
+  for (let p = 0; p < n; p++) if (p !== zero && values.re[p] <= reLimit) candidates.push(p);
+  const dist = (p: number, b: number) => foldedDistance(values.re[p], values.im[p], spectrum[b].re, spectrum[b].im);
+  // Greedy decisions among pairs closer than D depend on nothing farther than D. So match within a
+  // radius D that grows until every candidate is matched; the outcome equals the full greedy
+  // matching at a fraction of its cost.
+  let radius = 0;
+  for (const p of candidates) {
+    let nearest = Infinity;
+    for (let b = 0; b < spectrum.length; b++) if (b !== baseline.zeroIndex) nearest = Math.min(nearest, dist(p, b));
+    radius = Math.max(radius, nearest);
+  }
+  radius = radius * 4 + Number.MIN_VALUE;
+  for (;;) {
+    const pairs: { d: number; p: number; b: number }[] = [];
+    for (let p = 0; p < n; p++) {
+      if (p === zero) continue;
+      for (let b = 0; b < spectrum.length; b++) {
+        if (b === baseline.zeroIndex) continue;
+        const d = dist(p, b);
+        if (d <= radius) pairs.push({ d, p, b });
+      }
     }
+    pairs.sort((x, y) => x.d - y.d);
+    const matchOf = new Map<number, number>();
+    const taken = new Set<number>();
+    for (const { p, b } of pairs) {
+      if (matchOf.has(p) || taken.has(b)) continue;
+      matchOf.set(p, b);
+      taken.add(b);
+    }
+    if (candidates.every((p) => matchOf.has(p)) || pairs.length >= (n - 1) * (spectrum.length - 1)) {
+      return candidates.some((p) => branchSet.has(matchOf.get(p) ?? -1));
+    }
+    radius *= 4;
   }
-  pairs.sort((x, y) => x.d - y.d);
-  const matchOf = new Int32Array(n).fill(-1);
-  const taken = new Uint8Array(spectrum.length);
-  let left = n - 1;
-  for (const { p, b } of pairs) {
-    if (left === 0) break;
-    if (matchOf[p] !== -1 || taken[b]) continue;
-    matchOf[p] = b;
-    taken[b] = 1;
-    left -= 1;
-  }
-  for (let p = 0; p < n; p++) {
-    if (p !== zero && values.re[p] <= reLimit && branchSet.has(matchOf[p])) return true;
-  }
-  return false;
 }
 
 function evaluatePoint(ctx: SweepContext, terms: EntryTerm[], eps: number, withFloor: boolean): PointEvaluation {

@@ -47,10 +47,15 @@ describe('chain a → b → c with the absent back edge c → b as a probe', () 
 });
 
 describe('triangle 1→2, 2→3, 3→1 plus 2→1 (unit weights)', () => {
-  // λ = 0, 2, 2 with one Jordan block: rank(L − 2I) = 2. Per-edge laws: characteristic polynomials
-  // μ² − εμ ∓ ε of the shifted block, derived by hand; exponents per Lidskii–Vishik–Lyusternik
-  // (Moro, Burke & Overton, "On the Lidskii–Vishik–Lyusternik perturbation theory for eigenvalues
-  // of matrices with arbitrary Jordan structure", SIAM J. Matrix Anal. Appl. 18, 1997).
+  // λ = 0, 2, 2 with one Jordan block: rank(L − 2I) = 2. With λ = 2 + μ and one weight changed by ε,
+  // det(L − λI) = −(μ + 2)·q(μ) where q is (characteristic polynomials expanded with sympy, roots
+  // worked out by hand; they agree with issue 3's "μ² − εμ ∓ ε"):
+  //   1→2, 3→1: μ(μ − ε)      ⇒ Re λ2 − 2 = min(0, ε): +ε flat, −ε linear with c = −1
+  //   2→3:      μ² − εμ + ε   ⇒ +ε complex pair, Re = ε/2; −ε real, −√|ε|
+  //   2→1:      μ² − εμ − ε   ⇒ +ε real, −√ε; −ε complex pair, Re = ε/2 = −|ε|/2
+  // The exponents are those of Lidskii–Vishik–Lyusternik theory (J. Moro, J. V. Burke & M. L. Overton,
+  // "On the Lidskii–Vishik–Lyusternik perturbation theory for eigenvalues of matrices with arbitrary
+  // Jordan structure", SIAM J. Matrix Anal. Appl. 18, 1997).
   const tri = net([
     ['1', '2', 1],
     ['2', '3', 1],
@@ -94,8 +99,14 @@ describe('triangle 1→2, 2→3, 3→1 plus 2→1 (unit weights)', () => {
 });
 
 describe('4-cycle 1→2→3→4→1 with chords 1→3 and 1→4 (unit weights)', () => {
-  // λ = 0, 2, 2, 2 in one Jordan block of size 3; exponents per Lidskii–Vishik–Lyusternik
-  // (Moro, Burke & Overton, SIAM J. Matrix Anal. Appl. 18, 1997), classes as stated in issue 3.
+  // λ = 0, 2, 2, 2 in one Jordan block of size 3 (rank(L − 2I) = 3). With λ = 2 + μ, the factor
+  // beside (μ + 2) of det(L − λI) is (expanded with sympy, roots worked out by hand):
+  //   1→2:            μ³ − εμ² + εμ − ε ⇒ μ³ ≈ ε:  +ε min Re = −ε^(1/3)/2, −ε min Re = −|ε|^(1/3)
+  //   1→3:            μ³ − εμ² − ε      ⇒ μ³ ≈ −ε: +ε min Re = −ε^(1/3),   −ε min Re = −|ε|^(1/3)/2
+  //   1→4:            μ(μ² − εμ − ε)    ⇒ +ε −√ε; −ε complex pair with Re = −|ε|/2
+  //   2→3, 3→4, 4→1:  μ²(μ − ε)         ⇒ +ε flat; −ε linear, c = −1
+  // Exponents 1/3 for a 3-block per Lidskii–Vishik–Lyusternik (Moro, Burke & Overton, SIAM J. Matrix
+  // Anal. Appl. 18, 1997); classes as listed in issue 3.
   const cyc: SpectralNetwork = net([
     ['1', '2', 1],
     ['2', '3', 1],
@@ -114,18 +125,22 @@ describe('4-cycle 1→2→3→4→1 with chords 1→3 and 1→4 (unit weights)',
   });
 
   it.each([
-    ['1', '2'],
-    ['1', '3'],
-  ])('edge %s→%s: cube-root on both signs', (s, t) => {
+    ['1', '2', -0.5, -1],
+    ['1', '3', -1, -0.5],
+  ])('edge %s→%s: cube-root on both signs (c = %p on +ε, %p on −ε)', (s, t, cPlus, cMinus) => {
     const e = find(result.edges, s, t);
     expect(e.plus?.class).toBe('cube-root');
     expect(e.minus?.class).toBe('cube-root');
+    expect(relErr(e.plus?.prefactor as number, cPlus)).toBeLessThan(0.02);
+    expect(relErr(e.minus?.prefactor as number, cMinus)).toBeLessThan(0.02);
   });
 
-  it('edge 1→4: +ε square-root, −ε linear', () => {
+  it('edge 1→4: +ε square-root (c = −1), −ε linear (c = −1/2)', () => {
     const e = find(result.edges, '1', '4');
     expect(e.plus?.class).toBe('square-root');
+    expect(relErr(e.plus?.prefactor as number, -1)).toBeLessThan(0.02);
     expect(e.minus?.class).toBe('linear');
+    expect(relErr(e.minus?.prefactor as number, -0.5)).toBeLessThan(0.02);
   });
 
   it.each([
