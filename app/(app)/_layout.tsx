@@ -1,10 +1,13 @@
 import { Slot } from 'expo-router';
 import { AppShell } from '@/components/shell/app-shell';
+import { SessionGate } from '@/components/shell/session-gate';
 
 export default function AppLayout() {
   return (
     <AppShell>
-      <Slot />
+      <SessionGate>
+        <Slot />
+      </SessionGate>
     </AppShell>
   );
 }

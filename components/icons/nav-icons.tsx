@@ -1,7 +1,7 @@
 import Svg, { Circle, Line, Path, Rect } from 'react-native-svg';
 
 /** Hand-drawn line icons on a 24-unit grid, one stroke weight throughout. */
-export type IconName = 'overview' | 'networks' | 'audits' | 'admin' | 'help';
+export type IconName = 'overview' | 'networks' | 'audits' | 'admin' | 'account' | 'help';
 
 interface IconProps {
   name: IconName;
@@ -40,6 +40,12 @@ export function NavIcon({ name, size = 22, color }: IconProps) {
         <>
           <Circle cx={8} cy={12} r={4} {...stroke} />
           <Path d="M12 12 H20.5 M17.5 12 V15 M20.5 12 V14.5" {...stroke} />
+        </>
+      )}
+      {name === 'account' && (
+        <>
+          <Circle cx={12} cy={8.5} r={3.8} {...stroke} />
+          <Path d="M4.5 20 C5.5 15.8 8.4 14 12 14 C15.6 14 18.5 15.8 19.5 20" {...stroke} />
         </>
       )}
       {name === 'help' && (

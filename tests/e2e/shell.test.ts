@@ -1,6 +1,8 @@
 import type { Browser } from 'playwright-core';
 import { launchBrowser, screenshot, viewports, watchErrors, type ViewportName } from './support/browser';
 import { startTestServer } from './support/server';
+import { signInAs } from './support/sign-in';
+import { demoUsers } from '../../seeds/data/demo';
 
 jest.setTimeout(120_000);
 
@@ -26,6 +28,7 @@ describe('app shell in Chromium', () => {
     test(`renders at ${name} (${viewports[name].width}×${viewports[name].height}) with the shipped fonts`, async () => {
       const page = await browser.newPage({ viewport: viewports[name] });
       const errors = watchErrors(page);
+      await signInAs(page, server.url, demoUsers[1].email, demoUsers[1].password);
       await page.goto(server.url + '/', { waitUntil: 'networkidle' });
       await page.evaluate(() => document.fonts.ready);
 

@@ -1,10 +1,3 @@
-import { ComingSoon } from '@/components/ui/coming-soon';
-import { Screen } from '@/components/ui/screen';
+import { UsersScreen } from '@/components/admin/users-screen';
 
-export default function AdminRoute() {
-  return (
-    <Screen kicker="People" title="Admin">
-      <ComingSoon what="Invite people, set their roles, and read the outgoing mail log." />
-    </Screen>
-  );
-}
+export default UsersScreen;

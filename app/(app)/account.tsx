@@ -1,0 +1,3 @@
+import { AccountScreen } from '@/components/account/account-screen';
+
+export default AccountScreen;

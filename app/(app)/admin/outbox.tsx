@@ -1,0 +1,3 @@
+import { OutboxScreen } from '@/components/admin/outbox-screen';
+
+export default OutboxScreen;

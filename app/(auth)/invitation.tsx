@@ -1,0 +1,3 @@
+import { InvitationScreen } from '@/components/auth/invitation-screen';
+
+export default InvitationScreen;
