@@ -126,7 +126,11 @@ function followsBranch(
   }
 }
 
-function evaluatePoint(ctx: SweepContext, terms: EntryTerm[], eps: number, withFloor: boolean): PointEvaluation {
+/**
+ * One exact solve at ε. `floor`: 'none' skips the error estimate (budget checks), 'transpose' solves
+ * Mᵀ as well, 'condition' uses the baseline's condition number.
+ */
+function evaluatePoint(ctx: SweepContext, terms: EntryTerm[], eps: number, floor: 'none' | 'transpose' | 'condition'): PointEvaluation {
   const { baseline, workspace, branchSet } = ctx;
   const values = workspace.solve(terms, eps);
   const z = zeroIndexOf(values);
@@ -135,8 +139,8 @@ function evaluatePoint(ctx: SweepContext, terms: EntryTerm[], eps: number, withF
   const tie = 1e3 * UNIT_ROUNDOFF * matrixScale(baseline.maxDegree);
   const tracked = followsBranch(values, z, minRe + tie, baseline, branchSet);
   let raw = NaN;
-  if (withFloor) {
-    if (baseline.transposeFloor) {
+  if (floor !== 'none') {
+    if (floor === 'transpose' || !baseline.firstOrder) {
       const other = lambda2Of(workspace.solve(terms, eps, true));
       raw = foldedDistance(values.re[l], values.im[l], other.re, other.im);
     } else {
@@ -194,12 +198,13 @@ export function auditPerturbation(
   const ladderScale = baseline.meanWeight > 0 ? baseline.meanWeight : 1;
   const magnitudes = ladderMagnitudes(opts.ladder, ladderScale);
   const floorMinimum = Math.max(baseline.baselineNoise, 4 * UNIT_ROUNDOFF * baseline.normF);
+  const floorMode = opts.noiseFloor === 'transpose' || baseline.transposeFloor ? 'transpose' : 'condition';
 
   const responses: Partial<Record<SweepSign, SignResponse>> = {};
   const traces: Partial<Record<SweepSign, SignTrace>> = {};
   for (const sign of opts.signs) {
     const { eps, truncated } = signedLadder(magnitudes, sign, weight);
-    const evals = eps.map((e) => evaluatePoint(ctx, entries, e, true));
+    const evals = eps.map((e) => evaluatePoint(ctx, entries, e, floorMode));
     const delta = evals.map((p) => p.re - baseline.baselineRe);
     const raw = evals.map((p) => (p.tracked ? p.raw : NaN));
     const floor = robustFloors(raw, opts.floorSafety, floorMinimum);
@@ -275,7 +280,7 @@ function toleranceBudget(
   const passes = (eps: number): boolean => {
     for (const s of sides) {
       const signed = s === 'plus' ? eps : -eps;
-      const { re } = evaluatePoint(ctx, entries, signed, false);
+      const { re } = evaluatePoint(ctx, entries, signed, 'none');
       // A relative slack of 1e-9 keeps a prediction that lands exactly on the limit from failing by rounding.
       if (!(Math.abs(re - baseline.baselineRe) <= allowed * (1 + 1e-9))) {
         lastFailure = s;

@@ -58,7 +58,7 @@ export function confirmBudget(
   candidate: number,
   passes: (eps: number) => boolean,
   ratio = 1.05,
-  maxHalvings = 60,
+  maxHalvings = 40,
 ): { eps: number; confirmed: boolean; checks: number } {
   let checks = 1;
   if (candidate <= 0 || passes(candidate)) return { eps: Math.max(candidate, 0), confirmed: true, checks };

@@ -7,7 +7,7 @@ import { edgeIndex, net, spectrumDistance } from './helpers';
 
 describe('Laplacian conventions', () => {
   it('in-degree: the target row holds what the target receives; rows sum to zero', () => {
-    // Definition in issue 3 (L[t][t] += w, L[t][s] −= w); a fact of the trade, no further source.
+    // Definition as stated in issue 3 (L[t][t] += w, L[t][s] −= w): common practice, no source.
     const b = analyseBaseline(net([['a', 'b', 2.5]], ['a', 'b']));
     expect(b.laplacian).toEqual([0, 0, -2.5, 2.5]);
   });
@@ -54,7 +54,7 @@ describe('directed cycle', () => {
 describe('DAG', () => {
   // In a DAG, ordering the nodes topologically makes L triangular: the eigenvalues are the weighted
   // in-degrees, and a weight change moves exactly one diagonal entry, i.e. one eigenvalue, linearly.
-  // (Fact of the trade, derived by hand.)
+  // (Common practice, no source; the consequences for λ2 derived by hand.)
   const dag = net([
     ['r', 'a', 1.2],
     ['r', 'b', 0.7],
