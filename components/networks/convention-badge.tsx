@@ -10,8 +10,8 @@ export const conventionText: Record<Convention, { short: string; long: string }>
 /** The Laplacian convention, shown wherever results are. */
 export function ConventionBadge({ convention, long = false }: { convention: Convention; long?: boolean }) {
   return (
-    <View accessibilityLabel={`Laplacian convention ${conventionText[convention].long}`} className="flex-row items-center rounded border border-rule-strong px-2 py-0.5">
-      <Text className="font-mono text-xs text-ink-soft">L·{convention === 'in' ? '←' : '→'} {long ? conventionText[convention].long : conventionText[convention].short}</Text>
+    <View accessibilityLabel={`Laplacian convention ${conventionText[convention].long}`} className="max-w-full flex-row items-center rounded border border-rule-strong px-2 py-0.5">
+      <Text className="shrink font-mono text-xs text-ink-soft">L·{convention === 'in' ? '←' : '→'} {long ? conventionText[convention].long : conventionText[convention].short}</Text>
     </View>
   );
 }

@@ -3,12 +3,12 @@ import { View } from 'react-native';
 import Svg, { Circle, G, Line, Polygon, Rect, Text as SvgText } from 'react-native-svg';
 import type { VersionSummary } from '@/lib/schemas/network';
 import { Button } from '../ui/button';
-import { fmtComplex } from '../ui/format';
+import { fmtComplex, fmtTick } from '../ui/format';
 import { Text } from '../ui/text';
 import { markSpectrum, niceTicks, type SpectrumPoint } from './spectrum-geometry';
 
 const H = 240;
-const PAD = { l: 44, r: 14, t: 12, b: 30 };
+const PAD = { l: 50, r: 14, t: 12, b: 30 };
 
 /** Eigenvalues in the complex plane; λ2's cluster as diamonds, the zero mode as a square. */
 export function SpectrumPlot({ summary }: { summary: VersionSummary }) {
@@ -38,13 +38,13 @@ export function SpectrumPlot({ summary }: { summary: VersionSummary }) {
         {xs.map((t) => (
           <G key={`x${t}`}>
             <Line x1={x(t)} x2={x(t)} y1={PAD.t} y2={H - PAD.b} stroke="#E9E4D8" />
-            <SvgText x={x(t)} y={H - PAD.b + 14} fontSize={10} fontFamily="JetBrainsMono_400Regular" fill="#6B7785" textAnchor="middle">{+t.toPrecision(3)}</SvgText>
+            <SvgText x={x(t)} y={H - PAD.b + 14} fontSize={10} fontFamily="JetBrainsMono_400Regular" fill="#6B7785" textAnchor="middle">{fmtTick(t)}</SvgText>
           </G>
         ))}
         {ys.map((t) => (
           <G key={`y${t}`}>
             <Line x1={PAD.l} x2={width - PAD.r} y1={y(t)} y2={y(t)} stroke={t === 0 ? '#B9B09C' : '#E9E4D8'} />
-            <SvgText x={PAD.l - 4} y={y(t) + 3} fontSize={10} fontFamily="JetBrainsMono_400Regular" fill="#6B7785" textAnchor="end">{+t.toPrecision(3)}</SvgText>
+            <SvgText x={PAD.l - 4} y={y(t) + 3} fontSize={10} fontFamily="JetBrainsMono_400Regular" fill="#6B7785" textAnchor="end">{fmtTick(t)}</SvgText>
           </G>
         ))}
         <SvgText x={width - PAD.r} y={H - 4} fontSize={10} fill="#6B7785" textAnchor="end">Re λ</SvgText>

@@ -15,7 +15,7 @@ export function Card({ title, children }: { title?: string; children?: ReactNode
 export function Figure({ label, value, unit }: { label: string; value: string; unit?: string }) {
   return (
     <View className="min-w-[120px] flex-1">
-      <Text className="text-xs uppercase tracking-wider text-ink-faint">{label}</Text>
+      <Text className="text-xs tracking-wide text-ink-faint">{label}</Text>
       <Text className="mt-1 font-mono text-2xl text-ink">
         {value}
         {unit ? <Text className="font-mono text-sm text-ink-faint"> {unit}</Text> : null}
