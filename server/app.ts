@@ -1,6 +1,5 @@
 import express, { type Express } from 'express';
 import type { Knex } from 'knex';
-import { DEFAULT_LIMITS } from '../lib/formats';
 import { mountAccountRoutes, mountIdentity } from './auth/mount';
 import type { Config } from './config';
 import { healthRouter } from './health/router';
@@ -46,7 +45,7 @@ export function createApp({ db, config, log = defaultLog, summaries, mailer, now
     networksRouter({
       db,
       summaries: summaries ?? new SummaryQueue(db, createInlinePool(), log),
-      limits: { maxNodes: DEFAULT_LIMITS.maxNodes, maxEdges: DEFAULT_LIMITS.maxEdges },
+      limits: config.importLimits,
     }),
   );
   api.use(apiNotFound);

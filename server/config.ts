@@ -20,6 +20,8 @@ const envSchema = z.object({
   HAIRLINE_WEB_ROOT: z.string().min(1).default('dist'),
   HAIRLINE_SESSION_IDLE_MINUTES: z.coerce.number().int().min(1).max(24 * 60).default(30),
   HAIRLINE_SESSION_MAX_HOURS: z.coerce.number().int().min(1).max(24 * 30).default(12),
+  HAIRLINE_MAX_NODES: z.coerce.number().int().min(2).max(100_000).default(2000),
+  HAIRLINE_MAX_EDGES: z.coerce.number().int().min(1).max(1_000_000).default(20_000),
   HAIRLINE_SIGN_IN_LIMIT: z.coerce.number().int().min(1).max(10_000).default(20),
 });
 
@@ -35,6 +37,8 @@ export interface Config {
   session: { idleMs: number; absoluteMs: number };
   /** Sign-in, invitation and reset attempts allowed per client address per 15 minutes. */
   signInLimit: number;
+  /** The largest network an import may hold. */
+  importLimits: { maxNodes: number; maxEdges: number };
 }
 
 export class ConfigError extends Error {
@@ -75,6 +79,7 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     webRoot: path.resolve(cwd, e.HAIRLINE_WEB_ROOT),
     session: { idleMs: e.HAIRLINE_SESSION_IDLE_MINUTES * 60_000, absoluteMs: e.HAIRLINE_SESSION_MAX_HOURS * 3_600_000 },
     signInLimit: e.HAIRLINE_SIGN_IN_LIMIT,
+    importLimits: { maxNodes: e.HAIRLINE_MAX_NODES, maxEdges: e.HAIRLINE_MAX_EDGES },
   };
 }
 

@@ -105,3 +105,19 @@ describe('networks API', () => {
     expect(res.status).toBe(403);
   });
 });
+
+describe('import limits from the configuration', () => {
+  test('HAIRLINE_MAX_NODES refuses a larger network with a problem saying so', async () => {
+    const w = await accountsWorld({ HAIRLINE_MAX_NODES: '3' });
+    try {
+      const analyst = await signedIn(w, 'analyst');
+      const text = ['source,target,weight', 'a,b,1', 'b,c,1', 'c,d,1'].join('\n');
+      const res = await analyst.post('/api/v1/networks/import').send({ name: 'Four nodes', format: 'csv', text });
+      expect(res.status).toBe(422);
+      expect(res.body.error.problems[0].code).toBe('too-many-nodes');
+      expect(res.body.error.problems[0].message).toMatch(/3/);
+    } finally {
+      await w.close();
+    }
+  });
+});
