@@ -6,7 +6,7 @@ import { signInAs } from './support/sign-in';
 
 jest.setTimeout(180_000);
 
-const admin = demoUsers.find((u) => u.roles.includes('admin'))!;
+const admin = demoUsers.find((u) => (u.roles as readonly string[]).includes('admin'))!;
 
 /**
  * The invitation walk-through on a phone, as a new user would try it: the
