@@ -1,3 +1,4 @@
+import { useEffect, useRef } from 'react';
 import { View } from 'react-native';
 import { Text } from '../ui/text';
 
@@ -10,15 +11,21 @@ export interface ShownProblem {
 
 /** Every problem of a refused import, each with its place, so the file can be fixed in one pass. */
 export function ImportProblems({ title, problems }: { title: string; problems: ShownProblem[] }) {
+  const ref = useRef<View>(null);
+  // On the web a View is a DOM element: bring the list into view when it appears.
+  useEffect(() => {
+    (ref.current as unknown as { scrollIntoView?: (o: object) => void } | null)?.scrollIntoView?.({ block: 'start' });
+  }, [title, problems]);
   return (
-    <View role="alert" aria-label="Import problems" className="gap-2 rounded-lg border border-rust bg-rust-soft p-4">
+    <View ref={ref} role="alert" aria-label="Import problems" className="gap-2 rounded-lg border border-rust bg-rust-soft p-4">
       <Text className="font-bold text-ink">× {title}</Text>
       {problems.length > 0 ? (
         <View className="gap-1.5">
           {problems.map((p, i) => (
-            <View key={i} className="flex-row gap-3 border-t border-rule pt-1.5">
-              <Text className="w-16 font-mono text-xs text-ink-soft">{p.line ? `line ${p.line}` : (p.element ?? '—')}</Text>
+            <View key={i} className="flex-row flex-wrap items-baseline gap-x-3 border-t border-rule pt-1.5">
+              {/* The parser's messages already begin with their place (line, element). */}
               <Text className="flex-1 text-sm leading-5 text-ink">{p.message}</Text>
+              <Text className="font-mono text-[11px] text-ink-faint">{p.code}</Text>
             </View>
           ))}
         </View>

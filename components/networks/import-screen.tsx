@@ -57,7 +57,6 @@ export function ImportScreen() {
   const ready = (networkId || f.name.trim()) && (f.source === 'file' ? !!f.file : f.text.trim() !== '');
   return (
     <Screen kicker={networkId ? `New version of ${target.data?.name ?? 'network'}` : 'Library'} title="Import a network">
-      {failure ? <ImportProblems title={failure.title} problems={failure.problems} /> : null}
       {!networkId ? (
         <Card>
           <View className="gap-4">
@@ -91,6 +90,8 @@ export function ImportScreen() {
           {advanced ? <AdvancedOptions f={f} /> : null}
         </View>
       </Card>
+      {/* Beside the button the person just pressed, so the answer is in view. */}
+      {failure ? <ImportProblems title={failure.title} problems={failure.problems} /> : null}
       <View className="flex-row flex-wrap gap-3">
         <Button label={networkId ? 'Import as next version' : 'Import network'} onPress={submit} busy={mutation.isPending} disabled={!ready} />
         <Button label="Cancel" tone="secondary" onPress={() => router.back()} />

@@ -40,7 +40,7 @@ export function NetworkDetailScreen() {
           </Card>
           <Card title="Spectrum">
             {v.summaryState === 'ready' && v.summary ? <SpectrumPlot summary={v.summary} /> : null}
-            {v.summaryState === 'pending' ? <Loading what={`the spectrum (${v.nodeCount} nodes; large networks take minutes)`} /> : null}
+            {v.summaryState === 'pending' ? <Loading verb="Computing" what={`the spectrum of ${v.nodeCount} nodes in the background (large networks take minutes; this page updates itself)`} /> : null}
             {v.summaryState === 'failed' ? <ErrorState message={`The spectrum could not be computed: ${v.summaryError ?? 'unknown reason'}`} /> : null}
           </Card>
           <Card title="Drawing">

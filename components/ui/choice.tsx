@@ -26,9 +26,9 @@ export function Choice<T extends string>({
               accessibilityLabel={o.label}
               accessibilityState={{ checked: on }}
               onPress={() => onChange(o.value)}
-              className={`min-h-[36px] flex-row items-center rounded-full border px-3 ${on ? 'border-ink bg-ink' : 'border-rule-strong bg-paper-card'}`}
+              className={`min-h-[36px] max-w-full flex-row items-center rounded-2xl border px-3 py-1.5 ${on ? 'border-ink bg-ink' : 'border-rule-strong bg-paper-card'}`}
             >
-              <Text className={`text-sm ${on ? 'text-paper-card' : 'text-ink-soft'}`}>
+              <Text className={`shrink text-sm ${on ? 'text-paper-card' : 'text-ink-soft'}`}>
                 {on ? '◆ ' : '◇ '}
                 {o.label}
               </Text>

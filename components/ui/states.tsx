@@ -2,11 +2,11 @@ import { ActivityIndicator, View } from 'react-native';
 import { Button } from './button';
 import { Text } from './text';
 
-export function Loading({ what }: { what: string }) {
+export function Loading({ what, verb = 'Loading' }: { what: string; verb?: string }) {
   return (
-    <View accessibilityRole="progressbar" accessibilityLabel={`Loading ${what}`} className="flex-row items-center gap-3 py-6">
+    <View accessibilityRole="progressbar" accessibilityLabel={`${verb} ${what}`} className="flex-row items-center gap-3 py-6">
       <ActivityIndicator color="#3C4A5A" />
-      <Text className="text-ink-soft">Loading {what}…</Text>
+      <Text className="shrink text-ink-soft">{verb} {what}…</Text>
     </View>
   );
 }
