@@ -9,6 +9,9 @@ import { noMailer, smtpMailer, type Mailer } from './mail/mailer';
 import { createInlinePool } from './jobs/pool';
 import { MAX_UPLOAD_BYTES, networksRouter } from './networks/router';
 import { SummaryQueue } from './networks/summaries';
+import { auditsRouter } from './audits/router';
+import { AuditRunner } from './audits/runner';
+import { mailNotifier } from './audits/notify';
 import { webRouter } from './web/static';
 
 export interface AppDeps {
@@ -21,10 +24,12 @@ export interface AppDeps {
   now?: () => number;
   /** Background spectrum summaries; tests get one that computes on the calling thread. */
   summaries?: SummaryQueue;
+  /** Audit sweeps; tests get one that computes on the calling thread. */
+  runner?: AuditRunner;
 }
 
 /** Builds the Express app without listening, so supertest can drive it. */
-export function createApp({ db, config, log = defaultLog, summaries, mailer, now = Date.now }: AppDeps): Express {
+export function createApp({ db, config, log = defaultLog, summaries, mailer, now = Date.now, runner }: AppDeps): Express {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
@@ -48,6 +53,8 @@ export function createApp({ db, config, log = defaultLog, summaries, mailer, now
       limits: config.importLimits,
     }),
   );
+  const notify = mailNotifier(db, accounts.mailer, log);
+  api.use(auditsRouter({ db, notify, now, runner: runner ?? new AuditRunner(db, createInlinePool(), notify, log, now) }));
   api.use(apiNotFound);
   app.use('/api/v1', api);
   app.use('/api', apiNotFound);

@@ -8,6 +8,8 @@ import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp';
 import { smtpMailer } from './mail/mailer';
 import { createWorkerPool } from './jobs/pool';
 import { SummaryQueue } from './networks/summaries';
+import { AuditRunner } from './audits/runner';
+import { mailNotifier } from './audits/notify';
 
 export interface RunningServer {
   url: string;
@@ -34,7 +36,10 @@ export async function startServer(config: Config, options: { seed?: boolean } = 
   // Mail (issue 4): in fake mode a loopback SMTP server stores every message in the outbox.
   const fakeSmtp: FakeSmtp | null = config.mail.mode === 'fake' ? await startFakeSmtp(db, { port: config.mail.fakePort }) : null;
   const mailer = smtpMailer(config, fakeSmtp?.port);
-  const app = createApp({ db, config, summaries, log, mailer });
+  const runner = new AuditRunner(db, jobs, mailNotifier(db, mailer, log), log);
+  const app = createApp({ db, config, summaries, log, mailer, runner });
+  // Sweeps cut short by a stop continue from their stored rows.
+  await runner.resumeInterrupted();
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.port, config.host, () => resolve(s));
     s.once('error', reject);
@@ -49,9 +54,12 @@ export async function startServer(config: Config, options: { seed?: boolean } = 
     async close() {
       await new Promise<void>((resolve) => server.close(() => resolve()));
       server.closeAllConnections?.();
-      await fakeSmtp?.close();
+      runner.stop();
+      summaries.stop();
       await jobs.close();
+      await runner.idle();
       await summaries.idle();
+      await fakeSmtp?.close();
       await db.destroy();
     },
   };

@@ -22,7 +22,11 @@ export function createWorkerPool(threads = Math.max(1, require('node:os').availa
 /** Runs tasks on the calling thread: for tests and one-shot CLIs. */
 export function createInlinePool(): JobPool {
   return {
-    run: async <T>(task: Task) => runTask(task) as T,
+    // Yield to the event loop first, so requests (a cancel, a progress poll) interleave with the work.
+    run: async <T>(task: Task) => {
+      await new Promise((resolve) => setImmediate(resolve));
+      return runTask(task) as T;
+    },
     close: async () => {},
   };
 }

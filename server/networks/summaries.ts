@@ -10,6 +10,8 @@ import { findVersionById, pendingSummaryIds, storeSummary } from './repo';
  */
 export class SummaryQueue {
   private inFlight = new Map<number, Promise<void>>();
+  /** Set on shutdown: a summary cut short stays pending and is computed at the next start. */
+  private stopping = false;
 
   constructor(
     private readonly db: Knex,
@@ -31,6 +33,10 @@ export class SummaryQueue {
     return ids.length;
   }
 
+  stop(): void {
+    this.stopping = true;
+  }
+
   /** Resolves when every scheduled summary has been stored (tests, shutdown). */
   async idle(): Promise<void> {
     while (this.inFlight.size > 0) await Promise.allSettled([...this.inFlight.values()]);
@@ -48,6 +54,7 @@ export class SummaryQueue {
         lambda2Re: summary.lambda2.re,
       });
     } catch (err) {
+      if (this.stopping) return;
       this.log(`summary of network version ${versionId} failed`, err);
       const reason = err instanceof Error ? err.message : String(err);
       await storeSummary(this.db, versionId, { state: 'failed', error: reason.slice(0, 500) }).catch(() => {});
