@@ -27,13 +27,25 @@ export function useNetwork(id: number) {
   });
 }
 
-/** Polls while the version's spectrum is still being computed. */
+/**
+ * Polls while the version's spectrum is still being computed; when it lands,
+ * the network (its version list shows the state too) is refreshed as well.
+ */
 export function useNetworkVersion(id: number, version: number | undefined) {
+  const client = useQueryClient();
   return useQuery({
     queryKey: ['network', id, 'version', version],
-    queryFn: () => apiRequest(versionDetailSchema, `/networks/${id}/versions/${version}`),
+    queryFn: async () => {
+      const previous = client.getQueryData<{ summaryState: string }>(['network', id, 'version', version]);
+      const v = await apiRequest(versionDetailSchema, `/networks/${id}/versions/${version}`);
+      if (previous?.summaryState === 'pending' && v.summaryState !== 'pending') {
+        void client.invalidateQueries({ queryKey: ['network', id], exact: true });
+        void client.invalidateQueries({ queryKey: ['networks'] });
+      }
+      return v;
+    },
     enabled: Number.isFinite(id) && !!version,
-    refetchInterval: (q) => (q.state.data?.summaryState === 'pending' ? 3000 : false),
+    refetchInterval: (q) => (q.state.data?.summaryState === 'pending' ? 2000 : false),
   });
 }
 

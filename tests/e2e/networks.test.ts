@@ -72,8 +72,9 @@ describe('network import and detail in Chromium', () => {
       await chooseFile(page, demoCsv);
       await page.getByRole('button', { name: 'Import network' }).click();
       await page.getByRole('heading', { name: `Fen copy ${size}` }).waitFor();
-      await page.getByText('spectrum ready').first().waitFor({ timeout: 60_000 });
-      await page.getByLabel(/Spectrum plot of 8 eigenvalues/).waitFor();
+      // The spectrum is computed in the background; the page polls until it lands.
+      await page.getByLabel(/Spectrum plot of 8 eigenvalues/).waitFor({ timeout: 90_000 });
+      await page.getByText('spectrum ready').first().waitFor();
       await page.getByLabel(/Drawing of 8 nodes and 14 edges/).waitFor();
       await screenshot(page, `networks-detail-${size}`);
       if (size === 'phone') {
