@@ -1,6 +1,7 @@
 import { useLocalSearchParams, useRouter } from 'expo-router';
 import { View } from 'react-native';
 import { useNetwork, useNetworkVersion } from '@/lib/api/networks';
+import { StartAuditButton } from '../audits/start-audit-button';
 import { Button } from '../ui/button';
 import { Card } from '../ui/card';
 import { Screen } from '../ui/screen';
@@ -30,6 +31,7 @@ export function NetworkDetailScreen() {
       <View className="flex-row flex-wrap items-center gap-3">
         <ConventionBadge convention={net.convention} long />
         <Button label="Import next version" tone="secondary" onPress={() => router.push(`/networks/import?networkId=${id}`)} />
+        <StartAuditButton networkId={id} version={v?.summaryState === 'ready' ? shown : undefined} />
       </View>
       {version.isPending ? <Loading what="this version" /> : null}
       {version.isError ? <ErrorState message={version.error.message} onRetry={() => version.refetch()} /> : null}

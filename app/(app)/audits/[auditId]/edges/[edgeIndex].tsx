@@ -1,0 +1,3 @@
+import { EdgeDetailScreen } from '@/components/audits/edge-detail-screen';
+
+export default EdgeDetailScreen;

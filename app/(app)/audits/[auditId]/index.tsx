@@ -1,0 +1,3 @@
+import { AuditScreen } from '@/components/audits/audit-screen';
+
+export default AuditScreen;

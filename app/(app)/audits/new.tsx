@@ -1,0 +1,3 @@
+import { StartAuditScreen } from '@/components/audits/start-audit-screen';
+
+export default StartAuditScreen;
