@@ -1,9 +1,9 @@
-import { Card, Figure, Paragraph } from '../ui/card';
+import { Card, Paragraph } from '../ui/card';
 import { Screen } from '../ui/screen';
-import { View } from 'react-native';
+import { NextSteps } from './next-steps';
 import { ServerStatus } from './server-status';
 
-/** The landing screen. Per-role guidance arrives with accounts. */
+/** The landing screen: what Hairline does, and what is next for you. */
 export function OverviewScreen() {
   return (
     <Screen kicker="Gannet Sound district" title="Overview">
@@ -11,13 +11,8 @@ export function OverviewScreen() {
         Hairline perturbs every edge weight of a tuned network, measures how the slowest convergence mode
         answers, and tells you which links need tight calibration before a configuration goes live.
       </Paragraph>
-      <Card title="The job, in order">
-        <View className="flex-row flex-wrap gap-4">
-          <Figure label="1 · analyst" value="import" />
-          <Figure label="2 · analyst" value="run" />
-          <Figure label="3 · auditor" value="review" />
-          <Figure label="4 · approver" value="lock" />
-        </View>
+      <Card title="Next steps">
+        <NextSteps />
       </Card>
       <ServerStatus />
     </Screen>

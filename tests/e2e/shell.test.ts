@@ -63,7 +63,7 @@ describe('app shell in Chromium', () => {
       } else {
         await expect(rail.isVisible()).resolves.toBe(true);
         await expect(bar.isVisible()).resolves.toBe(false);
-        await expect(page.getByRole('complementary', { name: 'Details' }).isVisible()).resolves.toBe(true);
+        await expect(page.getByRole('complementary', { name: 'Latest audits' }).isVisible()).resolves.toBe(true);
       }
 
       await page.getByRole('link', { name: 'Networks' }).first().click();
