@@ -3,9 +3,12 @@ import { useAuditTrail } from '@/lib/api/audits';
 import { fmtDate } from '../ui/format';
 import { ErrorState, Loading } from '../ui/states';
 import { Text } from '../ui/text';
-import { actionText } from './looks';
+import { actionText, describeValue } from './looks';
 
-const clip = (s: string | null, n = 80) => (s === null ? '—' : s.length > n ? `${s.slice(0, n - 1)}…` : s);
+const clip = (raw: string | null, n = 90) => {
+  const s = describeValue(raw);
+  return s.length > n ? `${s.slice(0, n - 1)}…` : s;
+};
 
 /** Every recorded action, oldest first, and whether the hash chain holds. */
 export function AuditTrail({ auditId }: { auditId: number }) {
@@ -24,7 +27,7 @@ export function AuditTrail({ auditId }: { auditId: number }) {
             <View className="flex-row flex-wrap items-baseline gap-x-2">
               <Text className="font-mono text-xs text-ink-faint">{fmtDate(e.at)}</Text>
               <Text className="font-medium text-sm text-ink">{e.actor ?? 'system'}</Text>
-              <Text className="text-sm text-ink-soft">{actionText[e.action] ?? e.action}</Text>
+              <Text className="text-sm text-ink-soft">{actionText[e.action] ?? e.action.replace(/^audit\./, '')}</Text>
             </View>
             {e.oldValue !== null || e.newValue !== null ? (
               <Text className="font-mono text-xs text-ink-soft">

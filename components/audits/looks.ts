@@ -59,15 +59,32 @@ export const limitText: Record<string, string> = {
   'not-rooted': 'the network not being rooted (λ2 = 0)',
 };
 
+/** The trail's action names (`audit.…`) in words. */
 export const actionText: Record<string, string> = {
-  start: 'started the run',
-  cancel: 'cancelled the run',
-  finish: 'sweep finished',
-  fail: 'sweep failed',
-  dispose: 'recorded a disposition',
-  disposition: 'recorded a disposition',
-  submit: 'submitted for sign-off',
-  return: 'sent back to the analyst',
-  reopen: 'reopened for review',
-  lock: 'sealed the audit',
+  'audit.started': 'started the run',
+  'audit.resumed': 'resumed the sweep after a restart',
+  'audit.sweep-finished': 'sweep finished; ready for review',
+  'audit.failed': 'sweep failed',
+  'audit.cancelled': 'cancelled the run',
+  'audit.disposition': 'recorded a disposition',
+  'audit.submitted': 'submitted for sign-off',
+  'audit.returned': 'sent back to the analyst',
+  'audit.reopened': 'reopened for review',
+  'audit.sealed': 'sealed the audit (approved)',
 };
+
+/** A trail value (JSON text) as a short line: `kind accept · note …`. */
+export function describeValue(raw: string | null): string {
+  if (raw === null) return '—';
+  let v: unknown;
+  try {
+    v = JSON.parse(raw);
+  } catch {
+    return raw;
+  }
+  if (v === null) return '—';
+  if (typeof v !== 'object') return String(v);
+  return Object.entries(v as Record<string, unknown>)
+    .map(([k, x]) => `${k} ${typeof x === 'object' && x !== null ? JSON.stringify(x) : String(x)}`)
+    .join(' · ');
+}
