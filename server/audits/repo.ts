@@ -68,10 +68,13 @@ export async function doneEdgeIndices(db: Knex, auditId: number): Promise<Set<nu
   return new Set(rows.map((r) => r.edge_index));
 }
 
-/** Stores one chunk's rows and the new progress count together: a crash leaves both or neither. */
+/**
+ * Stores one chunk's rows and the new progress count together: a crash leaves both or neither.
+ * A row already stored (a chunk delivered twice) is kept as it is, and progress is counted from the table.
+ */
 export async function storeChunk(db: Knex, auditId: number, rows: EdgeRowFields[]): Promise<number> {
   return db.transaction(async (trx) => {
-    if (rows.length) await trx('audit_edges').insert(rows.map((r) => ({ ...r, audit_id: auditId })));
+    if (rows.length) await trx('audit_edges').insert(rows.map((r) => ({ ...r, audit_id: auditId }))).onConflict(['audit_id', 'edge_index']).ignore();
     const [{ n }] = await trx('audit_edges').where({ audit_id: auditId }).count<{ n: number }[]>({ n: '*' });
     await trx('audits').where({ id: auditId }).update({ progress_done: Number(n) });
     return Number(n);

@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import { toEdgeRowFields } from '../../lib/audit/edge-row';
 import type { EdgeResult, SpectralBaseline, SpectralNetwork, SpectralOptions } from '../../lib/spectral';
-import type { JobPool } from '../jobs/pool';
+import { JobDiscardedError, type JobPool } from '../jobs/pool';
 import { recordEvent } from '../trail/service';
 import type { AuditNotifier } from './notify';
 import * as repo from './repo';
@@ -15,8 +15,9 @@ function chunkSize(nodes: number): number {
 
 /**
  * Runs audit sweeps: the baseline once, then the edges in chunks on the
- * worker pool, each chunk's rows stored with the progress count in one
- * transaction. A run interrupted by a stop resumes from the stored rows.
+ * job pool (worker threads here, or queue workers in bullmq mode), each
+ * chunk's rows stored with the progress count in one transaction. A run
+ * interrupted by a stop resumes from the stored rows.
  */
 export class AuditRunner {
   private running = new Map<number, Promise<void>>();
@@ -30,7 +31,8 @@ export class AuditRunner {
     private readonly notify: AuditNotifier,
     private readonly log: (msg: string, err?: unknown) => void,
     private readonly now: () => number = Date.now,
-    private readonly parallel = 1,
+    /** Chunks kept in flight; by default as many as the pool is worth feeding. */
+    private readonly parallel = pool.width,
   ) {}
 
   start(auditId: number): Promise<void> {
@@ -51,7 +53,10 @@ export class AuditRunner {
 
   /** Asks a running sweep to stop after its current chunk. */
   cancel(auditId: number): void {
+    if (!this.running.has(auditId)) return;
     this.cancelled.add(auditId);
+    // Chunks still queued are dropped; one already being computed finishes unread.
+    void this.pool.discard(groupOf(auditId)).catch((err) => this.log(`audit ${auditId}: dropping its queued chunks failed`, err));
   }
 
   /** Resolves when this audit's sweep (if any) has stopped. */
@@ -89,7 +94,17 @@ export class AuditRunner {
       const done = await repo.doneEdgeIndices(this.db, auditId);
       await repo.updateAudit(this.db, auditId, { state: 'sweeping', segment_started_ms: this.now(), segment_done_at_start: done.size, reason: null });
 
-      const baseline = await this.pool.run<SpectralBaseline>({ kind: 'audit-baseline', network, options });
+      const ticket = { group: groupOf(auditId) };
+      let baseline: SpectralBaseline;
+      try {
+        baseline = await this.pool.run<SpectralBaseline>({ kind: 'audit-baseline', network, options }, ticket);
+      } catch (err) {
+        if (err instanceof JobDiscardedError && this.cancelled.has(auditId)) {
+          await this.finish(auditId, 'cancelled', 'cancelled by the analyst before the sweep finished');
+          return;
+        }
+        throw err;
+      }
       if (!audit.baseline_json) {
         await repo.updateAudit(this.db, auditId, {
           baseline_json: JSON.stringify({ lambda2: baseline.lambda2, cluster: { size: baseline.cluster.size, spread: baseline.cluster.spread }, spectrum: baseline.spectrum, rooted: baseline.rooted, cutOff: baseline.cutOff }),
@@ -98,22 +113,44 @@ export class AuditRunner {
         });
       }
 
-      const todo = network.edges.map((_, i) => i).filter((i) => !done.has(i));
+      // Chunk boundaries depend on the edge index alone, so a resumed run asks for the same chunks again.
       const size = chunkSize(network.nodes.length);
       const chunks: number[][] = [];
-      for (let i = 0; i < todo.length; i += size) chunks.push(todo.slice(i, i + size));
+      for (let i = 0; i < network.edges.length; i++) {
+        if (done.has(i)) continue;
+        const last = chunks[chunks.length - 1];
+        if (last && Math.floor(last[0] / size) === Math.floor(i / size)) last.push(i);
+        else chunks.push([i]);
+      }
 
       // Keep `parallel` chunks in flight; rows are written as each returns.
       let next = 0;
+      let failure: unknown = null;
+      const halted = () => failure !== null || this.cancelled.has(auditId) || this.stopping;
       const worker = async () => {
-        while (next < chunks.length && !this.cancelled.has(auditId) && !this.stopping) {
+        while (next < chunks.length && !halted()) {
           const chunk = chunks[next++];
-          const results = await this.pool.run<EdgeResult[]>({ kind: 'audit-chunk', network, baseline, options, edgeIndices: chunk });
-          if (this.cancelled.has(auditId)) return;
+          let results: EdgeResult[];
+          try {
+            results = await this.pool.run<EdgeResult[]>({ kind: 'audit-chunk', network, baseline, options, edgeIndices: chunk }, ticket);
+          } catch (err) {
+            if (halted()) return;
+            // The first failure ends the run; the chunks still queued are dropped.
+            failure = err;
+            await this.pool.discard(ticket.group).catch(() => {});
+            return;
+          }
+          if (halted()) return;
+          if (results.length !== chunk.length || results.some((r, k) => r.index !== chunk[k])) {
+            failure = new Error(`the results for the chunk from edge ${chunk[0]} do not match the edges asked for`);
+            await this.pool.discard(ticket.group).catch(() => {});
+            return;
+          }
           await repo.storeChunk(this.db, auditId, results.map(toEdgeRowFields));
         }
       };
-      await Promise.all(Array.from({ length: Math.max(1, this.parallel) }, worker));
+      await Promise.all(Array.from({ length: Math.max(1, Math.min(this.parallel, chunks.length)) }, worker));
+      if (failure !== null && !this.stopping && !this.cancelled.has(auditId)) throw failure;
 
       if (this.stopping) return;
       if (this.cancelled.has(auditId)) {
@@ -137,4 +174,9 @@ export class AuditRunner {
       await recordEvent(trx, { actorId: null, action: `audit.${state === 'in-review' ? 'sweep-finished' : state}`, subjectType: 'audit', subjectId: auditId, oldValue: 'sweeping', newValue: state, reason }, this.now());
     });
   }
+}
+
+/** The job-pool group of an audit's tasks, so its queued chunks can be dropped together. */
+function groupOf(auditId: number): string {
+  return `audit-${auditId}`;
 }

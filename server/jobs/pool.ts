@@ -2,9 +2,32 @@ import path from 'node:path';
 import Piscina from 'piscina';
 import { runTask, type Task } from './tasks';
 
+/** Names the run a task belongs to (e.g. `audit-7`), so its pending tasks can be dropped together. */
+export interface JobTicket {
+  group: string;
+}
+
+/**
+ * Where heavy tasks run. Two kinds: worker threads inside this process
+ * (`createWorkerPool`, the default; `createInlinePool` for tests and CLIs)
+ * and a Redis queue served by worker processes (`createBullmqPool` in
+ * bullmq-pool.ts). Callers see the same thing: a task in, its result out.
+ */
 export interface JobPool {
-  run<T>(task: Task): Promise<T>;
+  run<T>(task: Task, ticket?: JobTicket): Promise<T>;
+  /** Drops the group's tasks that no worker has started; their callers get a JobDiscardedError. */
+  discard(group: string): Promise<void>;
+  /** How many tasks one run is worth keeping in flight here. */
+  readonly width: number;
   close(): Promise<void>;
+}
+
+/** The task was dropped by `discard` (a cancelled run) or by closing the pool before it finished. */
+export class JobDiscardedError extends Error {
+  constructor(message = 'the task was dropped before it finished') {
+    super(message);
+    this.name = 'JobDiscardedError';
+  }
 }
 
 /**
@@ -15,6 +38,9 @@ export function createWorkerPool(threads = Math.max(1, require('node:os').availa
   const pool = new Piscina({ filename: path.join(__dirname, 'worker-entry.js'), maxThreads: threads, minThreads: 0, idleTimeout: 30_000 });
   return {
     run: <T>(task: Task) => pool.run(task) as Promise<T>,
+    // A chunk already handed to a thread finishes; the run stops asking for more.
+    discard: async () => {},
+    width: threads,
     close: () => pool.destroy(),
   };
 }
@@ -27,6 +53,8 @@ export function createInlinePool(): JobPool {
       await new Promise((resolve) => setImmediate(resolve));
       return runTask(task) as T;
     },
+    discard: async () => {},
+    width: 1,
     close: async () => {},
   };
 }
