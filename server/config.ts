@@ -95,3 +95,16 @@ function keptSecret(databaseFile: string, cwd: string): string {
   writeFileSync(file, secret + '\n', { mode: 0o600 });
   return secret;
 }
+
+/** For command-line entry points: the configuration, or the list of problems and exit code 2. */
+export function loadConfigOrExit(env: Record<string, string | undefined> = process.env): Config {
+  try {
+    return loadConfig(env);
+  } catch (err) {
+    if (err instanceof ConfigError) {
+      console.error(err.message);
+      process.exit(2);
+    }
+    throw err;
+  }
+}

@@ -3,22 +3,13 @@
  * sources changed, migrates, seeds the demo team and networks on an empty
  * database, prints where to sign in, and serves.
  */
-import { ConfigError, loadConfig } from '../config';
+import { loadConfigOrExit } from '../config';
 import { startServer } from '../index';
 import { demoUsers } from '../../seeds/data/demo';
 import { buildWebIfStale } from './build-web';
 
 async function main(): Promise<void> {
-  let config;
-  try {
-    config = loadConfig();
-  } catch (err) {
-    if (err instanceof ConfigError) {
-      console.error(err.message);
-      process.exit(2);
-    }
-    throw err;
-  }
+  const config = loadConfigOrExit();
   await buildWebIfStale(config.webRoot);
   const running = await startServer(config, { seed: true });
   console.log(`\nHairline is serving on ${running.url}`);

@@ -2,22 +2,13 @@
  * `npm run verify-trail`: walks the hash-chained event trail and exits 1 at
  * the first entry that does not chain (an edited, inserted or removed row).
  */
-import { ConfigError, loadConfig } from '../config';
+import { loadConfigOrExit } from '../config';
 import { openDatabase } from '../db/connection';
 import { allEvents } from '../trail/repo';
 import { verifyTrail } from '../trail/service';
 
 async function main(): Promise<number> {
-  let config;
-  try {
-    config = loadConfig();
-  } catch (err) {
-    if (err instanceof ConfigError) {
-      console.error(err.message);
-      return 2;
-    }
-    throw err;
-  }
+  const config = loadConfigOrExit();
   const db = openDatabase(config.databaseFile);
   try {
     const events = await allEvents(db);

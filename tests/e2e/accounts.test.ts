@@ -1,7 +1,6 @@
-import type { Browser } from 'playwright-core';
 import { demoUsers } from '../../seeds/data/demo';
-import { launchBrowser, screenshot, viewports, watchErrors } from './support/browser';
-import { startTestServer } from './support/server';
+import { screenshot, viewports, watchErrors } from './support/browser';
+import { useBrowserWorld } from './support/world';
 import { signInAs } from './support/sign-in';
 
 jest.setTimeout(180_000);
@@ -14,21 +13,11 @@ const admin = demoUsers.find((u) => (u.roles as readonly string[]).includes('adm
  * password, and the auditor signs in to a menu and pages without admin.
  */
 describe('accounts in Chromium', () => {
-  let browser: Browser;
-  let server: Awaited<ReturnType<typeof startTestServer>>;
-
-  beforeAll(async () => {
-    server = await startTestServer();
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await server?.cleanup();
-  });
+  const world = useBrowserWorld();
 
   test('an anonymous visitor of a signed-in page is sent to sign-in', async () => {
-    const page = await browser.newPage({ viewport: viewports.phone });
-    await page.goto(server.url + '/networks', { waitUntil: 'networkidle' });
+    const page = await world.browser.newPage({ viewport: viewports.phone });
+    await page.goto(world.server.url + '/networks', { waitUntil: 'networkidle' });
     await page.getByRole('heading', { name: 'Sign in' }).waitFor();
     expect(new URL(page.url()).pathname).toBe('/sign-in');
     await page.getByLabel('E-mail', { exact: true }).fill(admin.email);
@@ -40,10 +29,10 @@ describe('accounts in Chromium', () => {
   });
 
   test('admin invites an auditor; the outbox link sets a password; the auditor sees only auditor things', async () => {
-    const context = await browser.newContext({ viewport: viewports.phone });
+    const context = await world.browser.newContext({ viewport: viewports.phone });
     const page = await context.newPage();
     const errors = watchErrors(page);
-    await signInAs(page, server.url, admin.email, admin.password);
+    await signInAs(page, world.server.url, admin.email, admin.password);
     await expect(page.getByRole('link', { name: 'Admin' }).isVisible()).resolves.toBe(true);
 
     await page.getByRole('link', { name: 'Admin' }).click();
@@ -72,10 +61,10 @@ describe('accounts in Chromium', () => {
     await screenshot(page, 'accounts-invitation-accepted-phone');
 
     // The auditor, in a browser of their own.
-    const auditorContext = await browser.newContext({ viewport: viewports.phone });
+    const auditorContext = await world.browser.newContext({ viewport: viewports.phone });
     const auditor = await auditorContext.newPage();
     const auditorErrors = watchErrors(auditor);
-    await signInAs(auditor, server.url, 'tamsin.reed@gannet-sound.test', 'kelp-bed-survey-0419');
+    await signInAs(auditor, world.server.url, 'tamsin.reed@gannet-sound.test', 'kelp-bed-survey-0419');
     const nav = auditor.getByTestId('bottom-bar');
     await nav.getByRole('link', { name: 'Audits' }).waitFor();
     expect(await nav.getByRole('link').allTextContents()).toEqual(['Overview', 'Networks', 'Audits', 'Account', 'Help']);
@@ -85,9 +74,9 @@ describe('accounts in Chromium', () => {
     await auditor.getByText('Roles: auditor').waitFor();
     expect(await auditor.getByText('API tokens').count()).toBe(0);
 
-    await auditor.goto(server.url + '/admin', { waitUntil: 'networkidle' });
+    await auditor.goto(world.server.url + '/admin', { waitUntil: 'networkidle' });
     await auditor.getByText('This needs the admin role; your account does not hold it.').waitFor();
-    await auditor.goto(server.url + '/admin/outbox', { waitUntil: 'networkidle' });
+    await auditor.goto(world.server.url + '/admin/outbox', { waitUntil: 'networkidle' });
     await auditor.getByText('This needs the admin role; your account does not hold it.').waitFor();
     expect(await auditor.getByText('Hairline: you have been invited').count()).toBe(0);
     await screenshot(auditor, 'accounts-auditor-refused-admin-phone');
@@ -101,9 +90,9 @@ describe('accounts in Chromium', () => {
   });
 
   test('the admin screen on a wide screen', async () => {
-    const page = await browser.newPage({ viewport: viewports.wide });
-    await signInAs(page, server.url, admin.email, admin.password);
-    await page.goto(server.url + '/admin', { waitUntil: 'networkidle' });
+    const page = await world.browser.newPage({ viewport: viewports.wide });
+    await signInAs(page, world.server.url, admin.email, admin.password);
+    await page.goto(world.server.url + '/admin', { waitUntil: 'networkidle' });
     await page.getByText('Everyone (').waitFor();
     await expect(page.getByTestId('side-rail').getByRole('link', { name: 'Admin' }).isVisible()).resolves.toBe(true);
     await screenshot(page, 'accounts-admin-wide');

@@ -4,8 +4,8 @@ import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { randomNetwork } from '../../lib/spectral';
 import { demoUsers } from '../../seeds/data/demo';
-import { launchBrowser, screenshot, viewports, watchErrors, type ViewportName } from './support/browser';
-import { startTestServer } from './support/server';
+import { screenshot, viewports, watchErrors, type ViewportName } from './support/browser';
+import { useBrowserWorld } from './support/world';
 import { signInAs } from './support/sign-in';
 
 jest.setTimeout(240_000);
@@ -39,24 +39,14 @@ async function chooseFile(page: Page, file: string) {
  * with its summary, spectrum and drawing.
  */
 describe('network import and detail in Chromium', () => {
-  let browser: Browser;
-  let server: Awaited<ReturnType<typeof startTestServer>>;
-
-  beforeAll(async () => {
-    server = await startTestServer();
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await server?.cleanup();
-  });
+  const world = useBrowserWorld();
 
   for (const size of Object.keys(viewports) as ViewportName[]) {
     test(`refused file, then an accepted one, at ${size}`, async () => {
-      const page = await browser.newPage({ viewport: viewports[size] });
+      const page = await world.browser.newPage({ viewport: viewports[size] });
       const errors = watchErrors(page);
-      await signInAs(page, server.url, analyst.email, analyst.password);
-      await openImport(page, server.url);
+      await signInAs(page, world.server.url, analyst.email, analyst.password);
+      await openImport(page, world.server.url);
 
       await page.getByLabel('Name', { exact: true }).fill(`Fen copy ${size}`);
       await chooseFile(page, writeCsv(`broken-${size}.csv`, ['inv-a,inv-b,1', 'inv-b,inv-c,heavy', 'inv-c,inv-c,1', 'inv-a,inv-b,2']));
@@ -90,9 +80,9 @@ describe('network import and detail in Chromium', () => {
     const net = randomNetwork({ nodes: 2000, edgesPerNode: 10, seed: 2026 });
     expect(net.edges.length).toBeGreaterThanOrEqual(19_000);
     const file = writeCsv('large.csv', net.edges.slice(0, 20_000).map((e) => `${e.source},${e.target},${e.weight}`));
-    const page = await browser.newPage({ viewport: viewports.wide });
-    await signInAs(page, server.url, analyst.email, analyst.password);
-    await openImport(page, server.url);
+    const page = await world.browser.newPage({ viewport: viewports.wide });
+    await signInAs(page, world.server.url, analyst.email, analyst.password);
+    await openImport(page, world.server.url);
     await page.getByLabel('Name', { exact: true }).fill('Large grid');
     await chooseFile(page, file);
     const started = Date.now();

@@ -1,6 +1,5 @@
-import type { Browser } from 'playwright-core';
-import { launchBrowser, screenshot, viewports, watchErrors, type ViewportName } from './support/browser';
-import { startTestServer } from './support/server';
+import { screenshot, viewports, watchErrors, type ViewportName } from './support/browser';
+import { useBrowserWorld } from './support/world';
 import { signInAs } from './support/sign-in';
 import { demoUsers } from '../../seeds/data/demo';
 
@@ -12,24 +11,14 @@ jest.setTimeout(120_000);
  * errors, and no sideways scrolling on a phone.
  */
 describe('app shell in Chromium', () => {
-  let browser: Browser;
-  let server: Awaited<ReturnType<typeof startTestServer>>;
-
-  beforeAll(async () => {
-    server = await startTestServer();
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await server?.cleanup();
-  });
+  const world = useBrowserWorld();
 
   for (const name of Object.keys(viewports) as ViewportName[]) {
     test(`renders at ${name} (${viewports[name].width}×${viewports[name].height}) with the shipped fonts`, async () => {
-      const page = await browser.newPage({ viewport: viewports[name] });
+      const page = await world.browser.newPage({ viewport: viewports[name] });
       const errors = watchErrors(page);
-      await signInAs(page, server.url, demoUsers[1].email, demoUsers[1].password);
-      await page.goto(server.url + '/', { waitUntil: 'networkidle' });
+      await signInAs(page, world.server.url, demoUsers[1].email, demoUsers[1].password);
+      await page.goto(world.server.url + '/', { waitUntil: 'networkidle' });
       await page.evaluate(() => document.fonts.ready);
 
       await expect(page.getByRole('heading', { name: 'Overview' }).isVisible()).resolves.toBe(true);
@@ -47,7 +36,11 @@ describe('app shell in Chromium', () => {
       const headingFont = await page
         .getByRole('heading', { name: 'Overview' })
         .evaluate((el) => getComputedStyle(el).fontFamily);
-      const figureFont = await page.getByText('import', { exact: true }).evaluate((el) => getComputedStyle(el).fontFamily);
+      // Step numbers are figures: they must be set in the monospaced face.
+      const figureFont = await page
+        .getByRole('link', { name: /Import a network/ })
+        .getByText('1', { exact: true })
+        .evaluate((el) => getComputedStyle(el).fontFamily);
       expect(fonts.loaded).toEqual(expect.arrayContaining(['SpaceGrotesk_400Regular', 'JetBrainsMono_400Regular']));
       expect(fonts.ui && fonts.mono).toBe(true);
       expect(headingFont).toContain('SpaceGrotesk_700Bold');
@@ -76,8 +69,8 @@ describe('app shell in Chromium', () => {
   }
 
   test('an unknown address shows the not-found page with status 404', async () => {
-    const page = await browser.newPage({ viewport: viewports.phone });
-    const res = await page.goto(server.url + '/no/such/place');
+    const page = await world.browser.newPage({ viewport: viewports.phone });
+    const res = await page.goto(world.server.url + '/no/such/place');
     expect(res?.status()).toBe(404);
     await page.getByRole('heading', { name: 'No such page' }).waitFor();
     await page.close();
