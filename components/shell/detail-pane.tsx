@@ -8,10 +8,13 @@ import { Text } from '../ui/text';
 /**
  * The right-hand pane on wide screens: what is waiting for you, wherever you
  * are. On the overview, whose page already lists the next steps, it shows
- * the latest audits instead.
+ * the latest audits instead; an audit's own pages use the width themselves.
  */
 export function DetailPane() {
-  const onOverview = usePathname() === '/';
+  const pathname = usePathname();
+  const onOverview = pathname === '/';
+  // An audit page lays out its own table and edge detail side by side: give it the width.
+  if (/^\/audits\/\d+/.test(pathname)) return null;
   return (
     <View role="complementary" aria-label={onOverview ? 'Latest audits' : 'Next steps'} className="hidden w-80 border-l border-rule bg-paper-card p-6 xl:w-96 lg:flex">
       <Text className="mb-3 font-medium text-xs uppercase tracking-widest text-ink-faint">{onOverview ? 'Latest audits' : 'Next steps'}</Text>
