@@ -75,6 +75,7 @@ export {
   MAX_NAME_LENGTH,
   PROBLEM_CODES,
   PROBLEM_LIST_CAP,
+  WEIGHT_RANGE,
   type ColumnMapping,
   type Edge,
   type EdgeList,

@@ -4,7 +4,7 @@
  * ' 1 ' → 1, 'Infinity' → Infinity), so the accepted spelling is explicit.
  */
 import { quote } from './problems';
-import type { ProblemCode } from './types';
+import { WEIGHT_RANGE, type ProblemCode } from './types';
 import type { RawWeight } from './raw';
 
 /** Plain decimal with optional sign, fraction and exponent: 2, -0.5, .75, 3., 1.2e-3. */
@@ -53,6 +53,14 @@ function checkValue(value: number, written: string, fromJsonNumber: boolean): We
       ok: false,
       code: 'weight-not-positive',
       text: `weight ${quote(written)} ${why}; leave a link with no coupling out of the file instead`,
+    };
+  }
+  if (value > WEIGHT_RANGE.max || value < WEIGHT_RANGE.min) {
+    const shown = fromJsonNumber ? `weight ${value}` : `weight ${quote(written)}`;
+    return {
+      ok: false,
+      code: 'weight-out-of-range',
+      text: `${shown} is outside the range Hairline can compute with (1e-100 to 1e100); rescale every weight of the network by the same factor`,
     };
   }
   return { ok: true, value };

@@ -74,6 +74,7 @@ export const PROBLEM_CODES = [
   'not-a-number',
   'not-finite',
   'weight-not-positive',
+  'weight-out-of-range',
   'self-loop',
   'duplicate-edge',
   'duplicate-node',
@@ -91,6 +92,13 @@ export const PROBLEM_CODES = [
 export type ProblemCode = (typeof PROBLEM_CODES)[number];
 
 export const DEFAULT_LIMITS = { maxNodes: 2000, maxEdges: 20000 } as const;
+
+/**
+ * Accepted weight magnitudes. Far beyond any physical coupling on both sides, and well inside the
+ * range where the eigen-solver's squares of matrix entries stay finite and normal in double precision:
+ * weights near 1e308 or 1e-300 made it return NaN or never finish.
+ */
+export const WEIGHT_RANGE = { min: 1e-100, max: 1e100 } as const;
 
 /** Longest node name accepted, in UTF-16 code units. Long enough for any real label, short enough to draw. */
 export const MAX_NAME_LENGTH = 200;
