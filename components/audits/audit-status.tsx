@@ -70,7 +70,7 @@ export function AuditSummaryFigures({ audit }: { audit: AuditDetail }) {
       </View>
       <View accessibilityRole="list" aria-label="Edges per class" className="flex-row flex-wrap gap-2">
         {responseClasses.map((c) => (
-          <View key={c} className="min-w-[128px] flex-1 flex-row items-baseline justify-between gap-2 rounded-md border border-rule px-3 py-2">
+          <View key={c} className="grow basis-[46%] flex-row items-baseline justify-between gap-2 rounded-md border border-rule px-3 py-2 lg:basis-[30%]">
             <Text className="text-sm text-ink">
               <Text className={`font-mono-bold text-sm ${classLook[c].tone}`}>{classLook[c].glyph}</Text> {classLook[c].label}
             </Text>

@@ -30,7 +30,7 @@ export function EdgeDetailView({ audit, edgeIndex, showTitle = true }: { audit: 
       <View className="flex-row flex-wrap items-center gap-x-3 gap-y-1">
         <ClassTag cls={e.class} />
         <Text className="text-xs text-ink-faint">{classLook[e.class].law}</Text>
-        {e.flagged ? <Text className="text-xs text-rust">⚑ flagged: needs a disposition</Text> : null}
+        {e.flagged ? <Text className={`text-xs ${e.disposition ? 'text-ink-soft' : 'text-rust'}`}>⚑ flagged{e.disposition ? '' : ': needs a disposition'}</Text> : null}
       </View>
       <Card title="Response of Re λ2">
         <ResponsePlot plus={e.plus} minus={e.minus} />

@@ -1,6 +1,7 @@
 import { View } from 'react-native';
 import type { EdgeDetail } from '@/lib/schemas/audit';
 import { fmt } from '../ui/format';
+import { fig, pct } from './numbers';
 import { Text } from '../ui/text';
 import { flagText, limitText } from './looks';
 import type { SignDetail } from './response-geometry';
@@ -54,8 +55,8 @@ export function EdgeFigures({ edge }: { edge: EdgeDetail }) {
       </View>
       <View className="gap-0.5">
         <Text className="font-medium text-sm text-ink">Tolerance</Text>
-        <FigureRow label="largest safe |ε|" value={fmt(b.eps, 4)} note="weight units" />
-        <FigureRow label="as a share of the weight" value={b.relative === null ? '—' : `${fmt(b.relative * 100, 3)} %`} />
+        <FigureRow label="largest safe |ε|" value={fig(b.eps, 4)} note="weight units" />
+        <FigureRow label="as a share of the weight" value={b.relative === null ? '—' : `${pct(b.relative, 3)} %`} />
         <FigureRow label="allowed |Δ Re λ2| (τ·Re λ2)" value={fmt(b.allowedDelta, 3)} />
         <FigureRow label="limited by" value={limitText[b.limitedBy] ?? b.limitedBy} />
         <FigureRow label="checked by a direct solve" value={b.confirmed ? '✓ first prediction held' : '↓ bisected down to pass'} />

@@ -1,45 +1,47 @@
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
 import { Pressable, ScrollView, View } from 'react-native';
 import type { EdgeRow } from '@/lib/schemas/audit';
-import { fmt } from '../ui/format';
+import { fig, pct } from './numbers';
 import { Text } from '../ui/text';
 import type { EdgeFilters, EdgeSortKey } from './edge-query-url';
 import { ClassTag, DispositionTag } from './tags';
 
 const col = createColumnHelper<EdgeRow>();
-const num = (v: number | null, d = 3) => <Text className="font-mono text-sm text-ink">{fmt(v, d)}</Text>;
-const pct = (v: number | null) => <Text className="font-mono text-sm text-ink">{v === null ? '—' : `${fmt(v * 100, 3)}%`}</Text>;
-const exp = (v: number | null) => <Text className="font-mono text-sm text-ink">{v === null ? '—' : v.toFixed(2)}</Text>;
+const figure = (text: string) => <Text numberOfLines={1} className="font-mono text-xs text-ink">{text}</Text>;
+const exp = (v: number | null) => figure(v === null ? '—' : v.toFixed(2));
 
 /** Column ids are the server's sort keys, so TanStack's sorting state maps onto the URL as is. */
 const columns = [
-  col.accessor('edgeIndex', { id: 'edge', header: '#', cell: (c) => <Text className="font-mono text-sm text-ink-faint">{c.getValue()}</Text> }),
-  col.accessor('source', { id: 'source', header: 'Source', cell: (c) => <Text numberOfLines={1} className="font-mono text-sm text-ink">{c.getValue()}</Text> }),
-  col.accessor('target', { id: 'target', header: 'Target', cell: (c) => <Text numberOfLines={1} className="font-mono text-sm text-ink">{c.getValue()}</Text> }),
-  col.accessor('weight', { id: 'weight', header: 'Weight', cell: (c) => num(c.getValue(), 4) }),
-  col.accessor('class', { id: 'class', header: 'Class', cell: (c) => <ClassTag cls={c.getValue()} /> }),
-  col.accessor('plusExponent', { id: 'plusExponent', header: 'p at +ε', cell: (c) => exp(c.getValue()) }),
-  col.accessor('minusExponent', { id: 'minusExponent', header: 'p at −ε', cell: (c) => exp(c.getValue()) }),
-  col.accessor('tolerance', { id: 'tolerance', header: 'Tol. |ε|', cell: (c) => num(c.getValue()) }),
-  col.accessor('toleranceRel', { id: 'toleranceRel', header: 'Tol. %w', cell: (c) => pct(c.getValue()) }),
-  col.accessor('sensitivity', { id: 'sensitivity', header: '∂Re λ2/∂w', cell: (c) => num(c.getValue()) }),
-  col.accessor((r) => r.disposition?.kind ?? '', { id: 'disposition', header: 'Disposition', cell: (c) => <DispositionTag row={c.row.original} /> }),
+  col.accessor('edgeIndex', { id: 'edge', header: '#', cell: (c) => <Text className="font-mono text-xs text-ink-faint">{c.getValue()}</Text> }),
+  col.accessor('source', { id: 'source', header: 'Source', cell: (c) => <Text numberOfLines={1} className="font-mono text-xs text-ink">{c.getValue()}</Text> }),
+  col.accessor('target', { id: 'target', header: 'Target', cell: (c) => <Text numberOfLines={1} className="font-mono text-xs text-ink">{c.getValue()}</Text> }),
+  col.accessor('weight', { id: 'weight', header: 'Weight', cell: (c) => figure(fig(c.getValue(), 4)) }),
+  col.accessor('class', { id: 'class', header: 'Class', cell: (c) => <ClassTag cls={c.getValue()} small /> }),
+  col.accessor('plusExponent', { id: 'plusExponent', header: 'p +ε', cell: (c) => exp(c.getValue()) }),
+  col.accessor('minusExponent', { id: 'minusExponent', header: 'p −ε', cell: (c) => exp(c.getValue()) }),
+  col.accessor('tolerance', { id: 'tolerance', header: 'Tol |ε|', cell: (c) => figure(fig(c.getValue(), 3)) }),
+  col.accessor('toleranceRel', { id: 'toleranceRel', header: 'Tol %w', cell: (c) => figure(pct(c.getValue())) }),
+  col.accessor('sensitivity', { id: 'sensitivity', header: '∂Re λ2', cell: (c) => figure(fig(c.getValue(), 3)) }),
+  col.accessor((r) => r.disposition?.kind ?? '', { id: 'disposition', header: 'Disposition', cell: (c) => <DispositionTag row={c.row.original} small /> }),
 ];
 
-const layout: Record<EdgeSortKey, { width: number; right?: boolean }> = {
-  edge: { width: 44, right: true },
-  source: { width: 104 },
-  target: { width: 104 },
-  weight: { width: 76, right: true },
-  class: { width: 124 },
-  plusExponent: { width: 64, right: true },
-  minusExponent: { width: 64, right: true },
-  tolerance: { width: 84, right: true },
-  toleranceRel: { width: 76, right: true },
-  sensitivity: { width: 88, right: true },
-  disposition: { width: 116 },
+/** Widths fit the content column beside the shell's pane (about 730 px); names take any room beyond. */
+const layout: Record<EdgeSortKey, { width: number; right?: boolean; grow?: boolean; name: string }> = {
+  edge: { width: 28, right: true, name: 'edge number' },
+  source: { width: 70, grow: true, name: 'source' },
+  target: { width: 70, grow: true, name: 'target' },
+  weight: { width: 50, right: true, name: 'weight' },
+  class: { width: 86, name: 'class' },
+  plusExponent: { width: 38, right: true, name: 'exponent at +ε' },
+  minusExponent: { width: 38, right: true, name: 'exponent at −ε' },
+  tolerance: { width: 70, right: true, name: 'tolerance |ε|' },
+  toleranceRel: { width: 62, right: true, name: 'tolerance as % of weight' },
+  sensitivity: { width: 70, right: true, name: 'sensitivity ∂Re λ2/∂w' },
+  disposition: { width: 80, name: 'disposition' },
 };
-export const tableWidth = Object.values(layout).reduce((s, l) => s + l.width + 12, 0);
+const GAP = 3;
+export const tableWidth = Object.values(layout).reduce((s, l) => s + l.width + GAP, 12);
+const cellStyle = (l: (typeof layout)[EdgeSortKey]) => ({ flexBasis: l.width, flexGrow: l.grow ? 1 : 0, flexShrink: 0, minWidth: l.width, marginLeft: GAP / 2, marginRight: l === layout.edge ? GAP / 2 + 4 : GAP / 2 });
 
 /** The wide-screen audit table. Sorting, filtering and paging happen on the server. */
 export function EdgeTable({
@@ -86,19 +88,18 @@ export function EdgeTable({
             {g.headers.map((h) => {
               const l = layout[h.column.id as EdgeSortKey];
               const dir = h.column.getIsSorted();
-              const name = String(h.column.columnDef.header);
               return (
                 <Pressable
                   key={h.id}
                   role="columnheader"
                   aria-sort={dir === 'asc' ? 'ascending' : dir === 'desc' ? 'descending' : 'none'}
-                  accessibilityLabel={`Sort by ${name}`}
+                  accessibilityLabel={`Sort by ${l.name}`}
                   onPress={h.column.getToggleSortingHandler()}
-                  style={{ width: l.width }}
-                  className={`mx-1.5 min-h-[40px] flex-row items-center gap-1 ${l.right ? 'justify-end' : ''}`}
+                  style={cellStyle(l)}
+                  className={`min-h-[40px] flex-row items-center gap-0.5 ${l.right ? 'justify-end' : ''}`}
                 >
-                  <Text className={`text-xs ${dir ? 'font-bold text-ink' : 'font-medium text-ink-soft'}`}>{flexRender(h.column.columnDef.header, h.getContext())}</Text>
-                  <Text className="font-mono text-xs text-ink-faint">{dir === 'asc' ? '▲' : dir === 'desc' ? '▼' : '↕'}</Text>
+                  <Text numberOfLines={1} className={`text-xs ${dir ? 'font-bold text-ink' : 'font-medium text-ink-soft'}`}>{flexRender(h.column.columnDef.header, h.getContext())}</Text>
+                  <Text className={`text-[10px] ${dir ? 'text-ink' : 'text-ink-faint'}`}>{dir === 'asc' ? '▲' : dir === 'desc' ? '▼' : '↕'}</Text>
                 </Pressable>
               );
             })}
@@ -113,12 +114,12 @@ export function EdgeTable({
               aria-selected={on}
               accessibilityLabel={`Edge ${r.original.edgeIndex}: ${r.original.source} → ${r.original.target}, ${r.original.class}`}
               onPress={() => onSelect(r.original.edgeIndex)}
-              className={`flex-row items-center border-b border-rule px-1 py-1.5 ${on ? 'bg-ochre-soft' : 'hover:bg-paper'}`}
+              className={`min-h-[34px] flex-row items-center border-b border-rule px-1 py-1 ${on ? 'bg-ochre-soft' : 'hover:bg-paper'}`}
             >
               {r.getVisibleCells().map((c) => {
                 const l = layout[c.column.id as EdgeSortKey];
                 return (
-                  <View key={c.id} role="cell" style={{ width: l.width }} className={`mx-1.5 ${l.right ? 'items-end' : ''}`}>
+                  <View key={c.id} role="cell" style={cellStyle(l)} className={l.right ? 'items-end' : ''}>
                     {flexRender(c.column.columnDef.cell, c.getContext())}
                   </View>
                 );

@@ -1,6 +1,6 @@
 import { Link } from 'expo-router';
 import { useState } from 'react';
-import { Pressable, View } from 'react-native';
+import { Pressable, ScrollView, View, type ViewStyle } from 'react-native';
 import { auditCsvHref, auditReportHref, useAuditEdges } from '@/lib/api/audits';
 import type { AuditDetail } from '@/lib/schemas/audit';
 import { Button } from '../ui/button';
@@ -12,11 +12,19 @@ import { EdgeCards } from './edge-cards';
 import { EdgeDetailView } from './edge-detail-view';
 import { EdgeFiltersPanel } from './edge-filters';
 import { changeFilters, edgeQueryFromFilters, type EdgeFilters } from './edge-query-url';
-import { EdgeTable } from './edge-table';
+import { EdgeTable, tableWidth } from './edge-table';
 import { Pager } from './pager';
+import { SideSheet } from './side-sheet';
 
-/** Room the table and the detail need to sit side by side; below it the detail goes under the table. */
-const SIDE_BY_SIDE = 1060;
+/**
+ * Room the table and the detail need side by side in the content column.
+ * Narrower (the shell's own pane takes the right edge of a wide screen), the
+ * selected edge opens as a sheet over that pane, still beside the table.
+ */
+const DETAIL_WIDTH = 380;
+const SIDE_BY_SIDE = tableWidth + 16 + DETAIL_WIDTH;
+/** The detail stays in view while the table scrolls past (web CSS, hence the cast). */
+const sticky = { width: DETAIL_WIDTH, position: 'sticky', top: 12, maxHeight: 'calc(100vh - 24px)' } as unknown as ViewStyle;
 
 export function EdgesSection({
   audit,
@@ -57,7 +65,7 @@ export function EdgesSection({
           {data && data.rows.length > 0 ? (
             <>
               <View className="lg:hidden">
-                <EdgeCards auditId={audit.id} rows={data.rows} filters={filters} onSort={onSort} />
+                <EdgeCards auditId={audit.id} rows={data.rows} />
               </View>
               <View className="hidden lg:flex">
                 <EdgeTable rows={data.rows} total={data.total} filters={filters} selected={selected} onSort={onSort} onSelect={onSelect} />
@@ -77,25 +85,36 @@ export function EdgesSection({
             <DownloadLink href={auditReportHref(audit.id)} label="PDF sign-off report" filename={`audit-${audit.id}-report.pdf`} />
           </View>
         </View>
-        {selected !== undefined ? (
-          <View role="complementary" aria-label="Selected edge" className="hidden lg:flex" style={sideBySide ? { width: 400 } : undefined}>
-            <View className="gap-3 rounded-lg border border-rule-strong bg-paper-deep p-3">
-              <View className="flex-row flex-wrap items-center justify-between gap-2">
-                <Text className="font-medium text-xs uppercase tracking-widest text-ink-faint">Selected edge</Text>
-                <View className="flex-row items-center gap-1">
-                  <Link href={`/audits/${audit.id}/edges/${selected}`} asChild>
-                    <Pressable accessibilityRole="link" className="px-2 py-2">
-                      <Text className="text-sm text-rust underline">Own page</Text>
-                    </Pressable>
-                  </Link>
-                  <Button label="Close" tone="quiet" onPress={() => onSelect(undefined)} />
-                </View>
-              </View>
-              <EdgeDetailView audit={audit} edgeIndex={selected} />
-            </View>
+        {selected !== undefined && sideBySide ? (
+          <View role="complementary" aria-label="Selected edge" className="hidden rounded-lg border border-rule-strong bg-paper-deep lg:flex" style={sticky}>
+            <SelectedEdge audit={audit} selected={selected} onSelect={onSelect} fill={false} />
           </View>
+        ) : null}
+        {selected !== undefined && !sideBySide ? (
+          <SideSheet label="Selected edge" onClose={() => onSelect(undefined)}>
+            <SelectedEdge audit={audit} selected={selected} onSelect={onSelect} />
+          </SideSheet>
         ) : null}
       </View>
     </View>
+  );
+}
+
+function SelectedEdge({ audit, selected, onSelect, fill = true }: { audit: AuditDetail; selected: number; onSelect: (edgeIndex: number | undefined) => void; fill?: boolean }) {
+  return (
+    <ScrollView className={fill ? 'flex-1' : 'grow-0'} contentContainerClassName="gap-3 p-4">
+      <View className="flex-row flex-wrap items-center justify-between gap-2">
+        <Text className="font-medium text-xs uppercase tracking-widest text-ink-faint">Selected edge</Text>
+        <View className="flex-row items-center gap-1">
+          <Link href={`/audits/${audit.id}/edges/${selected}`} asChild>
+            <Pressable accessibilityRole="link" className="px-2 py-2">
+              <Text className="text-sm text-rust underline">Own page</Text>
+            </Pressable>
+          </Link>
+          <Button label="Close" tone="quiet" accessibilityHint="Closes the edge detail (Escape)" onPress={() => onSelect(undefined)} />
+        </View>
+      </View>
+      <EdgeDetailView audit={audit} edgeIndex={selected} />
+    </ScrollView>
   );
 }

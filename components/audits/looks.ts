@@ -1,5 +1,5 @@
 import type { AuditState, ResponseClass } from '@/lib/schemas/audit';
-import type { DispositionFilter } from './edge-query-url';
+import type { DispositionFilter, EdgeSortKey } from './edge-query-url';
 
 /**
  * How each kind of thing is shown: a glyph and a word always, a colour only
@@ -88,3 +88,18 @@ export function describeValue(raw: string | null): string {
     .map(([k, x]) => `${k} ${typeof x === 'object' && x !== null ? JSON.stringify(x) : String(x)}`)
     .join(' · ');
 }
+
+/** The sort keys as the phone's sort choice names them. */
+export const sortLabels: Record<EdgeSortKey, string> = {
+  edge: '#',
+  source: 'source',
+  target: 'target',
+  weight: 'weight',
+  class: 'class',
+  plusExponent: 'p at +ε',
+  minusExponent: 'p at −ε',
+  tolerance: 'tolerance',
+  toleranceRel: 'tolerance %',
+  sensitivity: 'sensitivity',
+  disposition: 'disposition',
+};

@@ -29,7 +29,7 @@ export function ReviewPanel({ audit, onShowUndisposed }: { audit: AuditDetail; o
         {stateLook[audit.state].glyph} {stateLook[audit.state].label}: {stateLook[audit.state].hint}.
         {audit.flaggedCount ? ` ${fmtInt(audit.flaggedCount)} flagged edge${audit.flaggedCount === 1 ? '' : 's'}, ${fmtInt(audit.undisposedCount)} still without a disposition.` : ' No edge is flagged.'}
       </Text>
-      {audit.undisposedCount > 0 && audit.state === 'in-review' ? (
+      {audit.undisposedCount > 0 && audit.allowed.includes('dispose') ? (
         <View className="self-start">
           <Button label={`Show the ${fmtInt(audit.undisposedCount)} without a disposition`} tone="quiet" onPress={onShowUndisposed} />
         </View>

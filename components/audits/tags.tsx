@@ -7,7 +7,7 @@ import { classLook, dispositionLook, stateLook } from './looks';
 export function ClassTag({ cls, exponent, small = false }: { cls: ResponseClass; exponent?: number | null; small?: boolean }) {
   const l = classLook[cls];
   return (
-    <Text accessibilityLabel={`class ${l.label}`} className={`${small ? 'text-xs' : 'text-sm'} text-ink`}>
+    <Text numberOfLines={small ? 1 : undefined} className={`${small ? 'text-xs' : 'text-sm'} text-ink`}>
       <Text className={`font-mono-bold ${small ? 'text-xs' : 'text-sm'} ${l.tone}`}>{l.glyph}</Text> {l.label}
       {exponent !== undefined && exponent !== null ? <Text className={`font-mono ${small ? 'text-xs' : 'text-sm'} text-ink-faint`}> p={exponent.toFixed(2)}</Text> : null}
     </Text>
@@ -24,18 +24,19 @@ export function StateTag({ state }: { state: AuditState }) {
   );
 }
 
-export function DispositionTag({ row }: { row: Pick<EdgeRow, 'flagged' | 'disposition'> }) {
+export function DispositionTag({ row, small = false }: { row: Pick<EdgeRow, 'flagged' | 'disposition'>; small?: boolean }) {
+  const size = small ? 'text-xs' : 'text-sm';
   if (!row.disposition) {
     return row.flagged ? (
-      <Text className="text-sm text-rust">{dispositionLook.none.glyph} needs one</Text>
+      <Text numberOfLines={1} className={`${size} text-rust`}>{dispositionLook.none.glyph} needs one</Text>
     ) : (
-      <Text className="text-sm text-ink-faint">—</Text>
+      <Text className={`${size} text-ink-faint`}>—</Text>
     );
   }
   const l = dispositionLook[row.disposition.kind];
   return (
-    <Text className="text-sm text-ink">
-      <Text className={`text-sm ${l.tone}`}>{l.glyph}</Text> {l.label}
+    <Text numberOfLines={1} className={`${size} text-ink`}>
+      <Text className={`${size} ${l.tone}`}>{l.glyph}</Text> {l.label}
     </Text>
   );
 }

@@ -7,7 +7,7 @@ export function ToggleChip({ label, glyph, on, onPress, count }: { label: string
     <Pressable
       accessibilityRole="checkbox"
       accessibilityLabel={label}
-      accessibilityState={{ checked: on }}
+      aria-checked={on}
       onPress={onPress}
       className={`min-h-[36px] max-w-full flex-row items-center rounded-2xl border px-3 py-1.5 ${on ? 'border-ink bg-ink' : 'border-rule-strong bg-paper-card'}`}
     >

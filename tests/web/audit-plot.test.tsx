@@ -1,3 +1,4 @@
+import { fig, pct } from '@/components/audits/numbers';
 import { fittedDelta, responseGeometry, type SignDetail } from '@/components/audits/response-geometry';
 import { decadeLabel } from '@/components/audits/response-plot';
 
@@ -88,5 +89,16 @@ describe('response plot geometry', () => {
     expect(decadeLabel(-7)).toBe('10⁻⁷');
     expect(decadeLabel(0)).toBe('1');
     expect(decadeLabel(2)).toBe('10²');
+  });
+});
+
+describe('table figures', () => {
+  test('whole numbers stay whole instead of turning into 1.0e+2', () => {
+    expect(pct(1)).toBe('100');
+    expect(fig(12345.6, 4)).toBe('12\u2009346');
+    expect(fig(-250, 2)).toBe('−250');
+    expect(pct(0.0123)).toBe('1.2');
+    expect(pct(7.84e-6)).toBe('7.8×10⁻⁴');
+    expect(pct(null)).toBe('—');
   });
 });

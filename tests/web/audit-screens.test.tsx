@@ -114,7 +114,7 @@ describe('audit page', () => {
     expect(edgesCall.url).toContain('sort=tolerance&dir=desc');
     // Rows in the table and as phone cards (one is hidden by CSS in a browser).
     expect(screen.getAllByText('mast-3').length).toBeGreaterThanOrEqual(1);
-    expect(screen.getByRole('columnheader', { name: 'Sort by Tol. |ε|' }).getAttribute('aria-sort')).toBe('descending');
+    expect(screen.getByRole('columnheader', { name: 'Sort by tolerance |ε|' }).getAttribute('aria-sort')).toBe('descending');
     // The CSV link carries the filters but not the page.
     const csv = screen.getByText(/CSV of this table/).closest('a')!;
     expect(csv.getAttribute('href')).toBe('/api/v1/audits/7/edges.csv?class=square-root&sort=tolerance&dir=desc');
@@ -124,7 +124,7 @@ describe('audit page', () => {
     fireEvent.click(screen.getByRole('checkbox', { name: 'cube-root' }));
     expect(mockRouter.setParams).toHaveBeenLastCalledWith(expect.objectContaining({ class: 'square-root,cube-root', page: undefined, sort: 'tolerance', dir: 'desc' }));
     // Sorting by a column header goes through TanStack Table to the URL.
-    fireEvent.click(screen.getByRole('columnheader', { name: 'Sort by Weight' }));
+    fireEvent.click(screen.getByRole('columnheader', { name: 'Sort by weight' }));
     expect(mockRouter.setParams).toHaveBeenLastCalledWith(expect.objectContaining({ sort: 'weight', dir: undefined }));
   });
 
