@@ -36,6 +36,9 @@ export function validateRows(raw: RawImport, settings: ValidateSettings, problem
       problems.report('name-too-long', where, `${what} is ${name.length.toLocaleString('en-US')} characters long; names may have at most ${MAX_NAME_LENGTH}`, col);
     } else if (/[\u0000-\u001f\u007f]/.test(name)) {
       problems.report('bad-name', where, `${what} ${quote(name)} contains a line break, tab or other control character; keep names on one line`, col);
+    } else if (/\p{Cs}/u.test(name)) {
+      // Reachable through JSON escapes (\ud800) and XML references (&#xD800;); stored as UTF-8 it would silently become U+FFFD.
+      problems.report('bad-name', where, `${what} ${quote(name.replace(/\p{Cs}/gu, '?'))} contains half of a character (an unpaired UTF-16 surrogate); write the whole character`, col);
     } else if (BIDI_CONTROLS.test(name)) {
       // Right-to-left letters are fine; the invisible overrides that make a name display in another order are not.
       problems.report('bad-name', where, `${what} ${quote(name.replace(BIDI_CONTROLS_ALL, '?'))} contains an invisible text-direction control (U+202A–U+202E or U+2066–U+2069), which makes it display differently from how it is stored; delete it`, col);

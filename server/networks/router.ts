@@ -1,6 +1,7 @@
 import express, { Router } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
+import { sniffContent } from '../../lib/formats';
 import { importRequestSchema, networkListQuerySchema } from '../../lib/schemas/network';
 import { requireRoles } from '../auth/require-roles';
 import { HttpError } from '../http/errors';
@@ -70,9 +71,27 @@ function formFields(body: Record<string, string>): Record<string, unknown> {
   return out;
 }
 
-/** UTF-8 (with or without BOM); anything else is reported by the parser as binary or malformed. */
+/**
+ * UTF-8 (with or without BOM). Workbooks, archives and PDFs go on to the
+ * parser, which names them; other text in another encoding is refused here,
+ * since decoding it loosely would store U+FFFD in place of letters.
+ */
 function decodeUpload(buffer: Buffer): string {
-  return new TextDecoder('utf-8', { fatal: false }).decode(buffer);
+  try {
+    return new TextDecoder('utf-8', { fatal: true }).decode(buffer);
+  } catch {
+    const loose = new TextDecoder('utf-8', { fatal: false }).decode(buffer);
+    const utf16 = (buffer[0] === 0xff && buffer[1] === 0xfe) || (buffer[0] === 0xfe && buffer[1] === 0xff);
+    if (!utf16 && sniffContent(loose) === 'binary') return loose;
+    const bad = loose.indexOf('\uFFFD');
+    const line = loose.slice(0, Math.max(bad, 0)).split('\n').length;
+    const message = utf16
+      ? 'The file is saved as UTF-16 text; save it again as UTF-8 (spreadsheets call it "CSV UTF-8") and import that file'
+      : `line ${line}: the file is not UTF-8 text (perhaps Latin-1 or Windows-1252), so letters such as ö would be lost; save it again as UTF-8 and import that file`;
+    throw new HttpError(422, 'import-rejected', 'The file was not imported: 1 problem to fix.', undefined, [
+      utf16 ? { code: 'wrong-format', message } : { code: 'wrong-format', message, line },
+    ]);
+  }
 }
 
 function uploadError(err: unknown): unknown {
