@@ -11,6 +11,7 @@ import { mkdtempSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { demoUsers } from '../../seeds/data/demo';
+import { korrinGrid } from '../support/korrin-grid';
 import { repoRoot, serverEnv, Session, startChildServer, stopChildServer, tsxArgs, type ChildServer } from '../support/spawned';
 
 const account = (role: string) => demoUsers.find((u) => u.roles.includes(role as never))!;
@@ -28,15 +29,6 @@ async function waitUntil<T>(what: string, probe: () => Promise<T | undefined>, t
     if (Date.now() > until) throw new Error(`gave up waiting for ${what}`);
     await pause(everyMs);
   }
-}
-
-/** 90 relay nodes of the island of Korrin, six links each with seeded weights: a sweep of 540 edges. */
-function korrinGrid(): string {
-  const rows = ['source,target,weight'];
-  let s = 20261202;
-  const next = () => ((s = (Math.imul(s, 1664525) + 1013904223) >>> 0) / 2 ** 32);
-  for (let i = 0; i < 90; i++) for (const step of [1, 5, 11, 23, 37, 61]) rows.push(`korrin-${i},korrin-${(i + step) % 90},${(0.5 + next()).toFixed(4)}`);
-  return rows.join('\n');
 }
 
 /** Every stored row of one audit, as the database holds it. */
@@ -83,7 +75,7 @@ describe('crash test: SIGKILL mid-sweep, restart on the same database', () => {
     const sealedBefore = auditRows(dbFile, sealedId);
 
     // 2. Start a long sweep and kill the server while it runs.
-    const imported = await analyst.send('POST', '/api/v1/networks/import', { name: 'Korrin relay grid', format: 'csv', text: korrinGrid() });
+    const imported = await analyst.send('POST', '/api/v1/networks/import', { name: 'Korrin relay grid', format: 'csv', text: korrinGrid(90, 6) });
     expect(imported.status).toBe(201);
     const started = await analyst.send('POST', '/api/v1/audits', { networkId: imported.body.networkId, version: 1 });
     expect(started.status).toBe(201);
