@@ -1,5 +1,6 @@
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
-import { Pressable, ScrollView, View } from 'react-native';
+import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type Row, type SortingState } from '@tanstack/react-table';
+import { memo, useCallback, useRef } from 'react';
+import { Pressable, ScrollView, View, type ViewStyle } from 'react-native';
 import type { EdgeRow } from '@/lib/schemas/audit';
 import { fig, pct } from './numbers';
 import { Text } from '../ui/text';
@@ -7,7 +8,7 @@ import type { EdgeFilters, EdgeSortKey } from './edge-query-url';
 import { ClassTag, DispositionTag } from './tags';
 
 const col = createColumnHelper<EdgeRow>();
-const figure = (text: string) => <Text numberOfLines={1} className="font-mono text-xs text-ink">{text}</Text>;
+const figure = (text: string) => <Text className="font-mono text-xs text-ink">{text}</Text>;
 const exp = (v: number | null) => figure(v === null ? '—' : v.toFixed(2));
 
 /** Column ids are the server's sort keys, so TanStack's sorting state maps onto the URL as is. */
@@ -25,23 +26,23 @@ const columns = [
   col.accessor((r) => r.disposition?.kind ?? '', { id: 'disposition', header: 'Disposition', cell: (c) => <DispositionTag row={c.row.original} small /> }),
 ];
 
-/** Widths fit the content column beside the shell's pane (about 730 px); names take any room beyond. */
-const layout: Record<EdgeSortKey, { width: number; right?: boolean; grow?: boolean; name: string }> = {
+/** Least widths, to fit beside the edge detail in a 1440 px window; any room beyond is shared out, names taking twice their share. */
+const layout: Record<EdgeSortKey, { width: number; right?: boolean; grow?: number; name: string }> = {
   edge: { width: 28, right: true, name: 'edge number' },
-  source: { width: 70, grow: true, name: 'source' },
-  target: { width: 70, grow: true, name: 'target' },
+  source: { width: 70, grow: 2, name: 'source' },
+  target: { width: 70, grow: 2, name: 'target' },
   weight: { width: 50, right: true, name: 'weight' },
   class: { width: 86, name: 'class' },
   plusExponent: { width: 38, right: true, name: 'exponent at +ε' },
   minusExponent: { width: 38, right: true, name: 'exponent at −ε' },
-  tolerance: { width: 70, right: true, name: 'tolerance |ε|' },
+  tolerance: { width: 72, right: true, name: 'tolerance |ε|' },
   toleranceRel: { width: 62, right: true, name: 'tolerance as % of weight' },
-  sensitivity: { width: 70, right: true, name: 'sensitivity ∂Re λ2/∂w' },
+  sensitivity: { width: 78, right: true, name: 'sensitivity ∂Re λ2/∂w' },
   disposition: { width: 80, name: 'disposition' },
 };
 const GAP = 3;
 export const tableWidth = Object.values(layout).reduce((s, l) => s + l.width + GAP, 12);
-const cellStyle = (l: (typeof layout)[EdgeSortKey]) => ({ flexBasis: l.width, flexGrow: l.grow ? 1 : 0, flexShrink: 0, minWidth: l.width, marginLeft: GAP / 2, marginRight: l === layout.edge ? GAP / 2 + 4 : GAP / 2 });
+const cellStyle = (l: (typeof layout)[EdgeSortKey]) => ({ flexBasis: l.width, flexGrow: l.width * (l.grow ?? 1), flexShrink: 0, minWidth: l.width, marginLeft: GAP / 2, marginRight: l === layout.edge ? GAP / 2 + 4 : GAP / 2 });
 
 /** The wide-screen audit table. Sorting, filtering and paging happen on the server. */
 export function EdgeTable({
@@ -60,6 +61,10 @@ export function EdgeTable({
   onSelect: (edgeIndex: number) => void;
 }) {
   const sorting: SortingState = [{ id: filters.sort, desc: filters.dir === 'desc' }];
+  // A stable handler, so selecting one edge re-renders two rows rather than the page.
+  const latest = useRef(onSelect);
+  latest.current = onSelect;
+  const select = useCallback((edgeIndex: number) => latest.current(edgeIndex), []);
   const table = useReactTable({
     data: rows,
     columns,
@@ -105,29 +110,34 @@ export function EdgeTable({
             })}
           </View>
         ))}
-        {table.getRowModel().rows.map((r) => {
-          const on = r.original.edgeIndex === selected;
-          return (
-            <Pressable
-              key={r.id}
-              role="row"
-              aria-selected={on}
-              accessibilityLabel={`Edge ${r.original.edgeIndex}: ${r.original.source} → ${r.original.target}, ${r.original.class}`}
-              onPress={() => onSelect(r.original.edgeIndex)}
-              className={`min-h-[34px] flex-row items-center border-b border-rule px-1 py-1 ${on ? 'bg-ochre-soft' : 'hover:bg-paper'}`}
-            >
-              {r.getVisibleCells().map((c) => {
-                const l = layout[c.column.id as EdgeSortKey];
-                return (
-                  <View key={c.id} role="cell" style={cellStyle(l)} className={l.right ? 'items-end' : ''}>
-                    {flexRender(c.column.columnDef.cell, c.getContext())}
-                  </View>
-                );
-              })}
-            </Pressable>
-          );
-        })}
+        {table.getRowModel().rows.map((r) => (
+          <TableRow key={r.id} row={r} on={r.original.edgeIndex === selected} onSelect={select} />
+        ))}
       </View>
     </ScrollView>
   );
 }
+
+const cellBoxes = Object.fromEntries(
+  (Object.keys(layout) as EdgeSortKey[]).map((k) => [k, { ...cellStyle(layout[k]), alignItems: layout[k].right ? 'flex-end' : 'flex-start' } as const]),
+) as Record<EdgeSortKey, ViewStyle>;
+
+/** One row; memoised, since a page may hold 200 of them. Cell boxes take plain styles to keep each cheap. */
+const TableRow = memo(function TableRow({ row, on, onSelect }: { row: Row<EdgeRow>; on: boolean; onSelect: (edgeIndex: number) => void }) {
+  const e = row.original;
+  return (
+    <Pressable
+      role="row"
+      aria-selected={on}
+      accessibilityLabel={`Edge ${e.edgeIndex}: ${e.source} → ${e.target}, ${e.class}`}
+      onPress={() => onSelect(e.edgeIndex)}
+      className={`min-h-[34px] flex-row items-center border-b border-rule px-1 py-1 [contain-intrinsic-size:auto_34px] [content-visibility:auto] ${on ? 'bg-ochre-soft' : 'hover:bg-paper'}`}
+    >
+      {row.getVisibleCells().map((c) => (
+        <View key={c.id} role="cell" style={cellBoxes[c.column.id as EdgeSortKey]}>
+          {flexRender(c.column.columnDef.cell, c.getContext())}
+        </View>
+      ))}
+    </Pressable>
+  );
+});

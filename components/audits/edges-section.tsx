@@ -15,13 +15,14 @@ import { changeFilters, edgeQueryFromFilters, type EdgeFilters } from './edge-qu
 import { EdgeTable, tableWidth } from './edge-table';
 import { Pager } from './pager';
 import { SideSheet } from './side-sheet';
+import { useWide } from './use-wide';
 
 /**
  * Room the table and the detail need side by side in the content column.
  * Narrower (the shell's own pane takes the right edge of a wide screen), the
  * selected edge opens as a sheet over that pane, still beside the table.
  */
-const DETAIL_WIDTH = 380;
+const DETAIL_WIDTH = 368;
 const SIDE_BY_SIDE = tableWidth + 16 + DETAIL_WIDTH;
 /** The detail stays in view while the table scrolls past (web CSS, hence the cast). */
 const sticky = { width: DETAIL_WIDTH, position: 'sticky', top: 12, maxHeight: 'calc(100vh - 24px)' } as unknown as ViewStyle;
@@ -42,6 +43,7 @@ export function EdgesSection({
   const query = edgeQueryFromFilters(filters);
   const edges = useAuditEdges(audit.id, query);
   const [width, setWidth] = useState(0);
+  const wide = useWide();
   const sideBySide = width >= SIDE_BY_SIDE;
   const data = edges.data;
   const onSort = (sort: EdgeFilters['sort'], dir: EdgeFilters['dir']) => onFilters(changeFilters(filters, { sort, dir }));
@@ -64,12 +66,16 @@ export function EdgesSection({
           ) : null}
           {data && data.rows.length > 0 ? (
             <>
-              <View className="lg:hidden">
-                <EdgeCards auditId={audit.id} rows={data.rows} />
-              </View>
-              <View className="hidden lg:flex">
-                <EdgeTable rows={data.rows} total={data.total} filters={filters} selected={selected} onSort={onSort} onSelect={onSelect} />
-              </View>
+              {/* Rows arrive after hydration, so the layout can follow the window: only one of the two is built. */}
+              {wide ? (
+                <View className="hidden lg:flex">
+                  <EdgeTable rows={data.rows} total={data.total} filters={filters} selected={selected} onSort={onSort} onSelect={onSelect} />
+                </View>
+              ) : (
+                <View className="lg:hidden">
+                  <EdgeCards auditId={audit.id} rows={data.rows} />
+                </View>
+              )}
               <Pager
                 page={filters.page}
                 pageSize={filters.pageSize}

@@ -7,7 +7,8 @@ import { fmt, fmtInt } from '../ui/format';
 export function fig(x: number | null | undefined, digits = 3): string {
   if (x === null || x === undefined || Number.isNaN(x)) return '—';
   const a = Math.abs(x);
-  if (a >= 10 ** digits && a < 1e5) return fmtInt(Math.round(x)).replace(/^-/, '−');
+  // Compare after rounding: 99.99 at 2 digits is also a three-digit whole number.
+  if (Number(a.toPrecision(digits)) >= 10 ** digits && a < 1e5) return fmtInt(Math.round(x)).replace(/^-/, '−');
   return fmt(x, digits);
 }
 

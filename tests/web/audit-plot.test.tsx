@@ -95,6 +95,7 @@ describe('response plot geometry', () => {
 describe('table figures', () => {
   test('whole numbers stay whole instead of turning into 1.0e+2', () => {
     expect(pct(1)).toBe('100');
+    expect(pct(0.99999)).toBe('100');
     expect(fig(12345.6, 4)).toBe('12\u2009346');
     expect(fig(-250, 2)).toBe('−250');
     expect(pct(0.0123)).toBe('1.2');
