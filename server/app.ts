@@ -36,6 +36,11 @@ export function createApp({ db, config, log = defaultLog, summaries, mailer, now
   app.use(securityHeaders());
 
   const api = express.Router();
+  // Answers hold account data and engineering records: no browser or proxy may keep a copy.
+  api.use((_req, res, next) => {
+    res.set('Cache-Control', 'no-store');
+    next();
+  });
   // A pasted edge list may be large; every other body stays small.
   api.use('/networks/import', express.json({ limit: MAX_UPLOAD_BYTES }));
   api.use(express.json({ limit: '1mb' }));
