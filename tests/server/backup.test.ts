@@ -16,7 +16,7 @@ import { defaultBackupFile } from '../../server/cli/backup';
 import { korrinGrid } from '../support/korrin-grid';
 import { repoRoot, serverEnv, Session, startChildServer, stopChildServer, tsxArgs, type ChildServer } from '../support/spawned';
 
-const analystAccount = demoUsers.find((u) => u.roles.includes('analyst'))!;
+const analystAccount = demoUsers.find((u) => (u.roles as readonly string[]).includes('analyst'))!;
 const pause = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 /** Runs a CLI of server/cli with the server's environment, without blocking the event loop. */
