@@ -168,7 +168,18 @@ describe('audit run, review and seal in Chromium', () => {
 
   test('approver on a phone seals the audit with a comment after a clear confirmation', async () => {
     const { page, errors, close } = await as(world.browser, world.server.url, approver, 'phone');
-    await page.goto(world.server.url + auditPath, { waitUntil: 'networkidle' });
+    // From the list, narrowed to what waits for sign-off.
+    await page.getByTestId('bottom-bar').getByRole('link', { name: 'Audits' }).click();
+    await page.getByRole('heading', { name: 'Audits' }).waitFor();
+    await page.getByRole('checkbox', { name: 'awaiting sign-off' }).click();
+    await page.waitForURL(/state=awaiting-sign-off/);
+    const card = page.getByRole('link', { name: new RegExp(`^Audit ${auditPath.split('/').pop()}: ${networkName}`) });
+    await card.waitFor();
+    await card.getByText(/^0\s*without disposition$/).waitFor();
+    await noSidewaysScroll(page);
+    await screenshot(page, 'audits-list-phone');
+    await card.click();
+    await page.waitForURL(new RegExp(`${auditPath}$`));
     await page.getByRole('button', { name: 'Seal the audit…' }).click();
     await page.getByText(/It is irreversible/).waitFor();
     await page.getByRole('button', { name: 'Continue to confirmation' }).click();
