@@ -14,7 +14,8 @@ export function DetailPane() {
   const pathname = usePathname();
   const onOverview = pathname === '/';
   // An audit page lays out its own table and edge detail side by side: give it the width.
-  if (/^\/audits\/\d+/.test(pathname)) return null;
+  // The static export renders this route as /audits/[auditId]: match it too, or hydration disagrees.
+  if (/^\/audits\/(\d+|\[auditId\])/.test(pathname)) return null;
   return (
     <View role="complementary" aria-label={onOverview ? 'Latest audits' : 'Next steps'} className="hidden w-80 border-l border-rule bg-paper-card p-6 xl:w-96 lg:flex">
       <Text className="mb-3 font-medium text-xs uppercase tracking-widest text-ink-faint">{onOverview ? 'Latest audits' : 'Next steps'}</Text>

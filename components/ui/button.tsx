@@ -33,6 +33,8 @@ export function Button({
       accessibilityLabel={label}
       accessibilityHint={accessibilityHint}
       accessibilityState={{ disabled: off, busy }}
+      aria-disabled={off}
+      aria-busy={busy}
       disabled={off}
       onPress={onPress}
       className={`min-h-[44px] flex-row items-center justify-center rounded-md border px-4 py-2 ${t.box} ${off ? 'opacity-50' : ''}`}

@@ -25,6 +25,7 @@ export function Choice<T extends string>({
               accessibilityRole="radio"
               accessibilityLabel={o.label}
               accessibilityState={{ checked: on }}
+              aria-checked={on}
               onPress={() => onChange(o.value)}
               className={`min-h-[36px] max-w-full flex-row items-center rounded-2xl border px-3 py-1.5 ${on ? 'border-ink bg-ink' : 'border-rule-strong bg-paper-card'}`}
             >

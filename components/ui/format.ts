@@ -4,7 +4,9 @@ export function fmt(x: number | null | undefined, digits = 4): string {
   if (x === null || x === undefined || Number.isNaN(x)) return '—';
   if (x === 0) return '0';
   const abs = Math.abs(x);
-  const s = abs >= 1e5 || abs < 1e-3 ? scientific(x, digits) : x.toPrecision(digits);
+  // toPrecision itself switches to e-notation when rounding carries past the digits (99.999 → "1.0e+2").
+  const fixed = x.toPrecision(digits);
+  const s = abs >= 1e5 || abs < 1e-3 || fixed.includes('e') ? scientific(x, digits) : fixed;
   return s.replace(/^-/, '−');
 }
 

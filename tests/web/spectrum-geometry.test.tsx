@@ -36,3 +36,10 @@ describe('axis ticks and figures', () => {
     expect(fmt(null)).toBe('—');
   });
 });
+
+describe('figures that round past their digits', () => {
+  test('99.999 to two digits is written 1.0×10², never in e-notation', () => {
+    expect(fmt(99.999, 2)).toBe('1.0×10²');
+    expect(fmt(12.34, 2)).toBe('12');
+  });
+});
