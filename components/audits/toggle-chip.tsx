@@ -1,4 +1,5 @@
 import { Pressable, View } from 'react-native';
+import { spaceActivates } from '../ui/keys';
 import { Text } from '../ui/text';
 
 /** One of several options that can be on together, announced as a checkbox. */
@@ -9,6 +10,7 @@ export function ToggleChip({ label, glyph, on, onPress, count }: { label: string
       accessibilityLabel={label}
       aria-checked={on}
       onPress={onPress}
+      {...spaceActivates(onPress)}
       className={`min-h-[36px] max-w-full flex-row items-center rounded-2xl border px-3 py-1.5 ${on ? 'border-ink bg-ink' : 'border-rule-strong bg-paper-card'}`}
     >
       <Text className={`shrink text-sm ${on ? 'text-paper-card' : 'text-ink-soft'}`}>

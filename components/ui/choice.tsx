@@ -1,4 +1,5 @@
 import { Pressable, View } from 'react-native';
+import { spaceActivates } from './keys';
 import { Text } from './text';
 
 /** A row of mutually exclusive options, announced as a radio group. */
@@ -27,6 +28,7 @@ export function Choice<T extends string>({
               accessibilityState={{ checked: on }}
               aria-checked={on}
               onPress={() => onChange(o.value)}
+              {...spaceActivates(() => onChange(o.value))}
               className={`min-h-[36px] max-w-full flex-row items-center rounded-2xl border px-3 py-1.5 ${on ? 'border-ink bg-ink' : 'border-rule-strong bg-paper-card'}`}
             >
               <Text className={`shrink text-sm ${on ? 'text-paper-card' : 'text-ink-soft'}`}>

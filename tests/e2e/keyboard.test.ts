@@ -1,0 +1,63 @@
+import type { Page } from 'playwright-core';
+import { demoUsers } from '../../seeds/data/demo';
+import { screenshot, viewports, watchErrors } from './support/browser';
+import { signInAs } from './support/sign-in';
+import { useBrowserWorld } from './support/world';
+
+jest.setTimeout(180_000);
+
+const user = (role: string) => demoUsers.find((u) => (u.roles as readonly string[]).includes(role))!;
+
+/** Presses Tab until the focused element matches, at most `limit` times; returns its label. */
+async function tabTo(page: Page, match: RegExp, limit = 80): Promise<string> {
+  for (let i = 0; i < limit; i++) {
+    await page.keyboard.press('Tab');
+    const label = await page.evaluate(() => {
+      const e = document.activeElement as HTMLElement | null;
+      return e ? `${e.getAttribute('aria-label') ?? ''} ${e.textContent ?? ''}`.trim() : '';
+    });
+    if (match.test(label)) return label;
+  }
+  throw new Error(`Tab never reached ${match}`);
+}
+
+/**
+ * The wide layout with the keyboard alone: an auditor reaches the table,
+ * opens a flagged edge, chooses a disposition, writes the note and records
+ * it — no mouse.
+ */
+describe('audit table and disposition form with the keyboard alone', () => {
+  const world = useBrowserWorld();
+
+  test('an auditor records a disposition without touching the mouse', async () => {
+    const analystPage = await (await world.browser.newContext({ viewport: viewports.wide })).newPage();
+    await signInAs(analystPage, world.server.url, user('analyst').email, user('analyst').password);
+    const auditId: number = await analystPage.evaluate(async () => {
+      const r = await fetch('/api/v1/audits', { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ networkId: 1, version: 1 }) });
+      return (await r.json()).id;
+    });
+
+    const page = await (await world.browser.newContext({ viewport: viewports.wide })).newPage();
+    const errors = watchErrors(page);
+    await signInAs(page, world.server.url, user('auditor').email, user('auditor').password);
+    await page.goto(`${world.server.url}/audits/${auditId}?flagged=yes`, { waitUntil: 'networkidle' });
+    await page.getByText('in review', { exact: true }).first().waitFor({ timeout: 90_000 });
+    await page.getByRole('row', { name: /^Edge 0:/ }).waitFor();
+
+    const row = await tabTo(page, /^Edge 0:/);
+    expect(row).toMatch(/mast-crest → mast-ledge/);
+    await page.keyboard.press('Enter');
+    await tabTo(page, /mitigate/);
+    await page.keyboard.press('Space');
+    await tabTo(page, /^Note/);
+    await page.keyboard.type('recalibrate the crest-to-ledge gain every quarter');
+    await tabTo(page, /Record disposition/);
+    await page.keyboard.press('Enter');
+
+    await page.getByRole('row', { name: /^Edge 0:/ }).getByText(/mitigate/).waitFor({ timeout: 20_000 });
+    const saved = await page.evaluate(async (id) => (await (await fetch(`/api/v1/audits/${id}/edges/0`)).json()).disposition, auditId);
+    expect(saved).toMatchObject({ kind: 'mitigate', note: 'recalibrate the crest-to-ledge gain every quarter', by: 'Demo Auditor' });
+    await screenshot(page, 'keyboard-disposition-wide');
+    expect(errors).toEqual([]);
+  });
+});
