@@ -163,7 +163,9 @@ async function main(): Promise<void> {
     if (stopping) process.exit(1); // a second signal: leave now; the chunk in hand is retried elsewhere
     stopping = true;
     console.log(`hairline worker ${name}: ${signal}, finishing the chunk in hand`);
-    void running.close().then(() => process.exit(0));
+    // Without Redis the goodbye cannot be said: give up after a while; BullMQ retries the chunk elsewhere.
+    setTimeout(() => process.exit(1), settings.lockMs + 10_000).unref();
+    void running.close().then(() => process.exit(0), () => process.exit(1));
   };
   process.on('SIGINT', () => stop('SIGINT'));
   process.on('SIGTERM', () => stop('SIGTERM'));
