@@ -2,6 +2,7 @@ import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { z } from 'zod';
+import { jobsEnvShape, jobsSettingsFrom, type JobsSettings } from './jobs/settings';
 
 /** Everything the server reads from the environment, checked once at start. */
 const envSchema = z.object({
@@ -23,6 +24,7 @@ const envSchema = z.object({
   HAIRLINE_MAX_NODES: z.coerce.number().int().min(2).max(100_000).default(2000),
   HAIRLINE_MAX_EDGES: z.coerce.number().int().min(1).max(1_000_000).default(20_000),
   HAIRLINE_SIGN_IN_LIMIT: z.coerce.number().int().min(1).max(10_000).default(20),
+  ...jobsEnvShape,
 });
 
 export interface Config {
@@ -39,6 +41,8 @@ export interface Config {
   signInLimit: number;
   /** The largest network an import may hold. */
   importLimits: { maxNodes: number; maxEdges: number };
+  /** Where audit sweeps run: the in-process pool (default) or BullMQ workers over Redis. */
+  jobs: JobsSettings;
 }
 
 export class ConfigError extends Error {
@@ -63,6 +67,8 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
   if (e.HAIRLINE_MAIL === 'smtp' && !e.HAIRLINE_SMTP_URL) {
     throw new ConfigError(['HAIRLINE_SMTP_URL: required when HAIRLINE_MAIL=smtp (e.g. smtp://relay.example:587)']);
   }
+  const jobs = jobsSettingsFrom(e);
+  if (jobs.problems.length) throw new ConfigError(jobs.problems);
   const databaseFile =
     e.HAIRLINE_DATABASE === ':memory:' ? ':memory:' : path.resolve(cwd, e.HAIRLINE_DATABASE);
   const sessionSecret = e.HAIRLINE_SESSION_SECRET ?? keptSecret(databaseFile, cwd);
@@ -80,6 +86,7 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     session: { idleMs: e.HAIRLINE_SESSION_IDLE_MINUTES * 60_000, absoluteMs: e.HAIRLINE_SESSION_MAX_HOURS * 3_600_000 },
     signInLimit: e.HAIRLINE_SIGN_IN_LIMIT,
     importLimits: { maxNodes: e.HAIRLINE_MAX_NODES, maxEdges: e.HAIRLINE_MAX_EDGES },
+    jobs: jobs.settings,
   };
 }
 

@@ -6,7 +6,8 @@ import type { Config } from './config';
 import { migrateToLatest, openDatabase } from './db/connection';
 import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp';
 import { smtpMailer } from './mail/mailer';
-import { createWorkerPool } from './jobs/pool';
+import { createWorkerPool, type JobPool } from './jobs/pool';
+import { createBullmqPool } from './jobs/bullmq-pool';
 import { SummaryQueue } from './networks/summaries';
 import { AuditRunner } from './audits/runner';
 import { mailNotifier } from './audits/notify';
@@ -30,13 +31,24 @@ export async function startServer(config: Config, options: { seed?: boolean } = 
   if (options.seed) await db.seed.run();
   const jobs = createWorkerPool();
   const log = (msg: string, err?: unknown) => console.error(`[hairline] ${msg}`, err instanceof Error ? err.message : (err ?? ''));
+  // Audit sweeps: on the same threads by default, or as chunks on a Redis queue for `npm run worker` processes.
+  let sweeps: JobPool = jobs;
+  if (config.jobs.mode === 'bullmq') {
+    try {
+      sweeps = await createBullmqPool(config.jobs, log);
+    } catch (err) {
+      await jobs.close();
+      await db.destroy();
+      throw err;
+    }
+  }
   const summaries = new SummaryQueue(db, jobs, log);
   // Versions stored before a stop still owe their summary.
   await summaries.resumePending();
   // Mail (issue 4): in fake mode a loopback SMTP server stores every message in the outbox.
   const fakeSmtp: FakeSmtp | null = config.mail.mode === 'fake' ? await startFakeSmtp(db, { port: config.mail.fakePort }) : null;
   const mailer = smtpMailer(config, fakeSmtp?.port);
-  const runner = new AuditRunner(db, jobs, mailNotifier(db, mailer, log), log);
+  const runner = new AuditRunner(db, sweeps, mailNotifier(db, mailer, log), log);
   const app = createApp({ db, config, summaries, log, mailer, runner });
   // Sweeps cut short by a stop continue from their stored rows.
   await runner.resumeInterrupted();
@@ -56,6 +68,7 @@ export async function startServer(config: Config, options: { seed?: boolean } = 
       server.closeAllConnections?.();
       runner.stop();
       summaries.stop();
+      if (sweeps !== jobs) await sweeps.close();
       await jobs.close();
       await runner.idle();
       await summaries.idle();

@@ -63,6 +63,9 @@ export async function createBullmqPool(
     );
   }
 
+  const workers = await queue.getWorkersCount().catch(() => -1);
+  if (workers === 0) log(`job queue ${settings.queue}: no worker is connected yet; audits wait until one is (npm run worker)`);
+
   const waiters = new Map<string, Waiter[]>();
   const groups = new Map<string, Set<string>>();
   /** Jobs dropped while a worker held them: removed when they finish. */

@@ -118,8 +118,8 @@ export interface WorkerProcess {
 }
 
 export function spawnWorker(settings: JobsSettings): WorkerProcess {
-  const env: Record<string, string> = {
-    ...(process.env as Record<string, string>),
+  const env: NodeJS.ProcessEnv = {
+    ...process.env,
     HAIRLINE_REDIS_URL: settings.redisUrl!,
     HAIRLINE_QUEUE: settings.queue,
     HAIRLINE_WORKER_THREADS: String(settings.workerThreads),
