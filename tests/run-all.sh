@@ -16,6 +16,17 @@ if [ ! -x "$chromium_bin" ]; then
   fi
 fi
 
+# The BullMQ tests start their own redis-server on a loopback port; without one they fail and say so.
+if [ -z "${HAIRLINE_REDIS_SERVER:-}" ] && ! command -v redis-server >/dev/null 2>&1 && [ ! -x /usr/bin/redis-server ]; then
+  if [ "$(id -u)" = 0 ]; then
+    echo "Installing Debian's redis-server for the BullMQ tests…"
+    apt-get update -qq
+    DEBIAN_FRONTEND=noninteractive apt-get install -y -qq redis-server >/dev/null
+  else
+    echo "The BullMQ tests need Debian's redis-server: run 'sudo apt-get install redis-server', or set HAIRLINE_REDIS_SERVER to a redis-server binary. They will fail without it." >&2
+  fi
+fi
+
 echo "== type check"
 npx tsc --noEmit
 
