@@ -76,7 +76,7 @@ describe('npm run backup and the documented restore', () => {
     expect(imported.status).toBe(201);
     const runId = (await analyst.send('POST', '/api/v1/audits', { networkId: imported.body.networkId, version: 1 })).body.id as number;
     for (let i = 0; (await sweepState(analyst, runId)).progress.done < 10; i++) {
-      if (i > 2000) throw new Error('the sweep never got going');
+      if (i > 2000) throw new Error(`the sweep never got going; server output:\n${server?.output()}`);
       await pause(20);
     }
 
@@ -97,7 +97,7 @@ describe('npm run backup and the documented restore', () => {
 
     // 2. Idle: the copy holds exactly the rows of every table.
     for (let i = 0; ['queued', 'sweeping'].includes((await sweepState(analyst, runId)).state); i++) {
-      if (i > 3000) throw new Error('the sweep never finished');
+      if (i > 3000) throw new Error(`the sweep never finished; server output:\n${server?.output()}`);
       await pause(50);
     }
     const named = path.join(dir, 'before-the-spring-retune.sqlite3');
@@ -119,7 +119,7 @@ describe('npm run backup and the documented restore', () => {
     server = await startChildServer(env);
     const back = await Session.signIn(server.url, analystAccount.email, analystAccount.password);
     for (let i = 0; ['queued', 'sweeping'].includes((await sweepState(back, runId)).state); i++) {
-      if (i > 3000) throw new Error('the restored sweep never finished');
+      if (i > 3000) throw new Error(`the restored sweep never finished; server output:\n${server?.output()}`);
       await pause(50);
     }
     expect(await sweepState(back, runId)).toMatchObject({ state: 'in-review', progress: { done: snapshot.progress_total, total: snapshot.progress_total } });

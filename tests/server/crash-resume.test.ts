@@ -21,12 +21,13 @@ async function signIn(server: ChildServer, role: 'analyst' | 'auditor' | 'approv
   return Session.signIn(server.url, account(role).email, account(role).password);
 }
 
-async function waitUntil<T>(what: string, probe: () => Promise<T | undefined>, timeoutMs = 90_000, everyMs = 40): Promise<T> {
+/** Polls until `probe` gives a value; on giving up, says what it last saw and what the server printed. */
+async function waitUntil<T>(what: string, probe: () => Promise<{ done?: T; seen: unknown }>, server: () => ChildServer | undefined, timeoutMs = 90_000, everyMs = 40): Promise<T> {
   const until = Date.now() + timeoutMs;
   for (;;) {
-    const got = await probe();
-    if (got !== undefined) return got;
-    if (Date.now() > until) throw new Error(`gave up waiting for ${what}`);
+    const { done, seen } = await probe();
+    if (done !== undefined) return done;
+    if (Date.now() > until) throw new Error(`gave up waiting for ${what}; last seen ${JSON.stringify(seen)}; server output:\n${server()?.output() ?? ''}`);
     await pause(everyMs);
   }
 }
@@ -62,7 +63,10 @@ describe('crash test: SIGKILL mid-sweep, restart on the same database', () => {
     const networks = (await analyst.get('/api/v1/networks?q=Gannet')).body.networks;
     const demo = networks.find((n: { name: string }) => n.name === 'Gannet Sound buoy relay');
     const sealedId = (await analyst.send('POST', '/api/v1/audits', { networkId: demo.id, version: 1 })).body.id as number;
-    await waitUntil('the demo sweep', async () => ((await analyst.get(`/api/v1/audits/${sealedId}`)).body.state === 'in-review' ? true : undefined));
+    await waitUntil('the demo sweep', async () => {
+      const d = (await analyst.get(`/api/v1/audits/${sealedId}`)).body;
+      return { done: d.state === 'in-review' ? true : undefined, seen: [d.state, d.progress] };
+    }, () => first);
     const flagged = (await auditor.get(`/api/v1/audits/${sealedId}/edges?flagged=yes&pageSize=100`)).body.rows as { edgeIndex: number }[];
     expect(flagged.length).toBeGreaterThan(0);
     for (const row of flagged) {
@@ -83,8 +87,8 @@ describe('crash test: SIGKILL mid-sweep, restart on the same database', () => {
     const midRun = await waitUntil('the sweep to be under way', async () => {
       const d = (await analyst.get(`/api/v1/audits/${runId}`)).body;
       if (d.state !== 'sweeping' && d.state !== 'queued') throw new Error(`the sweep ended (${d.state}) before it could be interrupted`);
-      return d.progress.done >= 25 ? d.progress : undefined;
-    });
+      return { done: d.progress.done >= 25 ? d.progress : undefined, seen: [d.state, d.progress] };
+    }, () => first);
     expect((await stopChildServer(first, 'SIGKILL')).signal).toBe('SIGKILL');
     expect(midRun.done).toBeLessThan(midRun.total);
 
@@ -100,8 +104,8 @@ describe('crash test: SIGKILL mid-sweep, restart on the same database', () => {
     const analystAgain = await signIn(second, 'analyst');
     const finished = await waitUntil('the resumed sweep', async () => {
       const d = (await analystAgain.get(`/api/v1/audits/${runId}`)).body;
-      return ['queued', 'sweeping'].includes(d.state) ? undefined : d;
-    }, 120_000, 200);
+      return { done: ['queued', 'sweeping'].includes(d.state) ? undefined : d, seen: [d.state, d.progress] };
+    }, () => second, 120_000, 200);
     if (finished.state === 'failed') expect(finished.reason).toEqual(expect.any(String));
     else expect(finished.state).toBe('in-review');
     const after = auditRows(dbFile, runId);
