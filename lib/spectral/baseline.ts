@@ -12,9 +12,10 @@ import { resolveOptions } from './options';
 import { SpectralInputError } from './errors';
 import { buildLaplacian, edgeSlots, frobeniusNorm, maxDiagonal, meanPositiveWeight } from './laplacian';
 import { analyseReachability } from './reachability';
-import { decompose, leastRealIndex, toMatrix, zeroIndexOf, type EigenvalueList } from './spectrum';
+import { decompose, foldedDistance, lambda2Of, leastRealIndex, toMatrix, zeroIndexOf, type EigenvalueList } from './spectrum';
 import { branchIndices, findCluster, UNIT_ROUNDOFF, type ClusterFinding } from './cluster';
 import { firstOrderData } from './sensitivity';
+import { buildFastData } from './fast/projector';
 
 /** Above this condition number λ2 is treated as nearly defective: floors come from the transposed solve. */
 export const CONDITION_FOR_TRANSPOSE_FLOOR = 1e3;
@@ -100,7 +101,7 @@ export function analyseBaseline(network: SpectralNetwork, options: SpectralOptio
     !(firstOrder.condition <= CONDITION_FOR_TRANSPOSE_FLOOR) ||
     cluster.size > 1;
 
-  return {
+  const baseline: SpectralBaseline = {
     convention: opts.convention,
     nodes: [...network.nodes],
     n,
@@ -121,4 +122,12 @@ export function analyseBaseline(network: SpectralNetwork, options: SpectralOptio
     transposeFloor,
     options: opts,
   };
+  // The fast sweep's per-network data (ordered Schur form, block-diagonal basis), computed once here
+  // so that workers receive it with the baseline.
+  if (opts.method === 'fast') {
+    const other = reach.rooted ? lambda2Of(tValues) : { re: 0, im: 0 };
+    const rawAtZero = reach.rooted ? foldedDistance(lambda2Computed.re, lambda2Computed.im, other.re, other.im) : 0;
+    baseline.fast = buildFastData(baseline, rawAtZero);
+  }
+  return baseline;
 }

@@ -9,6 +9,6 @@ export { resolveOptions, DEFAULT_LADDER } from './options';
 export { analyseBaseline } from './baseline';
 export { auditEdge, auditNetwork, auditPerturbation, assembleAudit, type PerturbationAudit } from './sweep';
 export { summariseNetwork } from './summary';
-export { randomNetwork, seededUniform, type RandomNetworkSpec } from './random-network';
+export { randomNetwork, seededUniform, jordanCoreNetwork, type RandomNetworkSpec, type JordanCoreSpec } from './random-network';
 export { buildLaplacian, edgeSlots } from './laplacian';
 export { classFromSlope, CLASS_EXPONENTS, CLASS_WINDOW } from './classify';

@@ -26,6 +26,8 @@ export function resolveOptions(options: SpectralOptions = {}): ResolvedOptions {
   if (!(clusterTolerance >= 0)) throw new SpectralInputError('clusterTolerance must be ≥ 0');
   const floorSafety = options.floorSafety ?? 10;
   if (!(floorSafety >= 1)) throw new SpectralInputError('floorSafety must be ≥ 1');
+  const method = options.method ?? 'fast';
+  if (method !== 'fast' && method !== 'exact') throw new SpectralInputError(`unknown method ${String(method)}`);
   return {
     convention,
     ladder: { from: ladder.from, to: ladder.to, step: ladder.step },
@@ -34,5 +36,6 @@ export function resolveOptions(options: SpectralOptions = {}): ResolvedOptions {
     clusterTolerance,
     noiseFloor: options.noiseFloor ?? 'auto',
     floorSafety,
+    method,
   };
 }

@@ -58,3 +58,69 @@ export function randomNetwork(spec: RandomNetworkSpec): SpectralNetwork {
   while (edges.length < wanted) add(Math.floor(rand() * n), Math.floor(rand() * n));
   return { nodes, edges };
 }
+
+export interface JordanCoreSpec {
+  /** Total node count (core included). */
+  nodes: number;
+  /** Jordan block size of λ2: 2 or 3. */
+  block: 2 | 3;
+  seed: number;
+  /** Average number of edges into each downstream node. Default 5. */
+  edgesPerNode?: number;
+  /**
+   * Core shape. `chain` (default): a leader followed by a chain of `block` nodes with one common
+   * weight w. `cycle`: the 3-node triangle with a chord (block 2) or the 4-cycle with two chords
+   * (block 3), all weights w.
+   */
+  shape?: 'chain' | 'cycle';
+}
+
+/**
+ * A network whose λ2 is a defective eigenvalue with a single Jordan block of the given size,
+ * embedded among `nodes` nodes.
+ *
+ * The core listens to no one outside it, so L is block lower triangular and the core's eigenvalues
+ * are eigenvalues of the whole network. Chain core c0 → c1 → … → c_k with weight w: the core block
+ * is lower bidiagonal with w on the diagonal (c1 … c_k) and −w below it — one Jordan block of size
+ * k at w (by hand). Cycle cores: the triangle 1→2→3→1 plus 2→1 has 0, 2w, 2w with rank(L − 2w) = 2;
+ * the 4-cycle with chords 1→3, 1→4 has 0, 2w, 2w, 2w with rank(L − 2w) = 3 (worked out in the
+ * closed-form tests). Every downstream node hears one core node with weight at least λ_core + 0.3
+ * plus random downstream nodes, so by Gershgorin's theorem (S. Gerschgorin, Izv. Akad. Nauk SSSR
+ * 1931 — cited from memory) its block's eigenvalues have real part above λ_core + 0.3: λ2 stays the
+ * core's. Nodes are named c0… for the core and d0… downstream.
+ */
+export function jordanCoreNetwork(spec: JordanCoreSpec): SpectralNetwork {
+  const rand = seededUniform(spec.seed);
+  const shape = spec.shape ?? 'chain';
+  const w = 0.6 + 0.8 * rand();
+  const coreEdges: [number, number][] =
+    shape === 'chain'
+      ? Array.from({ length: spec.block }, (_, i) => [i, i + 1] as [number, number])
+      : spec.block === 2
+        ? [[0, 1], [1, 2], [2, 0], [1, 0]]
+        : [[0, 1], [1, 2], [2, 3], [3, 0], [0, 2], [0, 3]];
+  const coreSize = shape === 'chain' ? spec.block + 1 : spec.block + 1;
+  const lambda = shape === 'chain' ? w : 2 * w;
+  const n = spec.nodes;
+  const nodes = [...Array.from({ length: coreSize }, (_, i) => `c${i}`), ...Array.from({ length: n - coreSize }, (_, i) => `d${i}`)];
+  const edges: SpectralNetwork['edges'] = coreEdges.map(([s, t]) => ({ source: nodes[s], target: nodes[t], weight: w }));
+  const seen = new Set(coreEdges.map(([s, t]) => s * n + t));
+  const add = (s: number, t: number, weight: number) => {
+    const key = s * n + t;
+    if (s === t || seen.has(key)) return false;
+    seen.add(key);
+    edges.push({ source: nodes[s], target: nodes[t], weight });
+    return true;
+  };
+  const perNode = spec.edgesPerNode ?? 5;
+  for (let t = coreSize; t < n; t++) {
+    add(Math.floor(rand() * coreSize), t, lambda + 0.3 + rand());
+    const extra = Math.max(0, Math.round(perNode - 1 + (rand() - 0.5) * 2));
+    for (let k = 0; k < extra; k++) {
+      // Mostly downstream senders, sometimes another core node.
+      const s = rand() < 0.85 && n - coreSize > 1 ? coreSize + Math.floor(rand() * (n - coreSize)) : Math.floor(rand() * coreSize);
+      add(s, t, 0.5 + rand());
+    }
+  }
+  return { nodes, edges };
+}

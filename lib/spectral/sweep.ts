@@ -33,16 +33,23 @@ import { PerturbationWorkspace, foldedDistance, lambda2Of, leastRealIndex, zeroI
 import { UNIT_ROUNDOFF } from './cluster';
 import { conditionFloor, robustFloors } from './noise-floor';
 import { ladderMagnitudes, signedLadder } from './ladder';
-import { analyseSign, type ResponseLaws } from './classify';
+import { analyseSign, exponentOfClass, type ResponseLaws } from './classify';
 import { confirmBudget, predictBudget, type SignTrace } from './tolerance';
 import { sensitivityOf } from './sensitivity';
 import { analyseBaseline, matrixScale } from './baseline';
+import type { FastSpectralData, SweepMethod } from './types';
+import { buildFastData } from './fast/projector';
+import { fastContext, type FastContext } from './fast/context';
+import { FastEdge, type FloorKind } from './fast/fast-edge';
+import { leadingPuiseux } from './fast/puiseux';
 
 interface SweepContext {
   baseline: SpectralBaseline;
   workspace: PerturbationWorkspace;
   branchSet: Set<number>;
   slots: EdgeSlot[];
+  /** Fast-path data, built on first use when the baseline does not carry it. */
+  fast?: { data: FastSpectralData; context: FastContext | null };
 }
 
 /** One workspace per baseline object (a worker reuses it across the edges it is given). */
@@ -126,6 +133,52 @@ function followsBranch(
   }
 }
 
+/** Fast-path data for this baseline: the baseline's own, or built once per worker. */
+function fastFor(ctx: SweepContext): { data: FastSpectralData; context: FastContext | null } {
+  if (!ctx.fast) {
+    const data = ctx.baseline.fast ?? buildFastData(ctx.baseline);
+    ctx.fast = { data, context: data.ok ? fastContext(ctx.baseline, data) : null };
+  }
+  return ctx.fast;
+}
+
+/** Where the points of one perturbation come from (full solves or the fast path). */
+interface PointSource {
+  point(eps: number, floor: FloorKind): PointEvaluation;
+  /** Points that fell back to a full solve. */
+  fallbacks: number;
+  /** The fast path's edge, when it runs. */
+  edge: FastEdge | null;
+}
+
+function pointSource(ctx: SweepContext, entries: EntryTerm[], method: SweepMethod): PointSource {
+  const exact = (eps: number, floor: FloorKind) => evaluatePoint(ctx, entries, eps, floor);
+  if (method === 'exact') return { point: exact, fallbacks: 0, edge: null };
+  const fast = fastFor(ctx);
+  const { baseline } = ctx;
+  const conditionRaw = baseline.firstOrder ? conditionFloor(baseline.firstOrder.condition, baseline.normF, baseline.n) : NaN;
+  const edge = fast.context ? FastEdge.create(baseline, fast.context, entries, ctx.branchSet, exact, conditionRaw) : null;
+  if (edge) {
+    return {
+      point: (eps, floor) => edge.point(eps, floor),
+      get fallbacks() {
+        return edge.fallbacks;
+      },
+      edge,
+    };
+  }
+  // The fast path does not apply (network or perturbation): every point is a counted fallback.
+  const source: PointSource = {
+    point: (eps, floor) => {
+      source.fallbacks += 1;
+      return exact(eps, floor);
+    },
+    fallbacks: 0,
+    edge: null,
+  };
+  return source;
+}
+
 /**
  * One exact solve at ε. `floor`: 'none' skips the error estimate (budget checks), 'transpose' solves
  * Mᵀ as well, 'condition' uses the baseline's condition number.
@@ -166,6 +219,8 @@ export interface PerturbationAudit {
   plus: SignResponse | null;
   minus: SignResponse | null;
   budget: ToleranceBudget;
+  /** Points the fast path handed to a full solve (0 for method 'exact'). */
+  fallbacks: number;
 }
 
 function mergedOptions(baseline: SpectralBaseline, options?: SpectralOptions) {
@@ -199,12 +254,13 @@ export function auditPerturbation(
   const magnitudes = ladderMagnitudes(opts.ladder, ladderScale);
   const floorMinimum = Math.max(baseline.baselineNoise, 4 * UNIT_ROUNDOFF * baseline.normF);
   const floorMode = opts.noiseFloor === 'transpose' || baseline.transposeFloor ? 'transpose' : 'condition';
+  const source = pointSource(ctx, entries, opts.method);
 
   const responses: Partial<Record<SweepSign, SignResponse>> = {};
   const traces: Partial<Record<SweepSign, SignTrace>> = {};
   for (const sign of opts.signs) {
     const { eps, truncated } = signedLadder(magnitudes, sign, weight);
-    const evals = eps.map((e) => evaluatePoint(ctx, entries, e, floorMode));
+    const evals = eps.map((e) => source.point(e, floorMode));
     const delta = evals.map((p) => p.re - baseline.baselineRe);
     const raw = evals.map((p) => (p.tracked ? p.raw : NaN));
     const floor = robustFloors(raw, opts.floorSafety, floorMinimum);
@@ -216,6 +272,13 @@ export function auditPerturbation(
       truncated,
       probe,
     });
+    if (source.edge && (response.class === 'square-root' || response.class === 'cube-root')) {
+      // Leading Puiseux coefficient of the reduced problem, beside the fitted prefactor.
+      const term = leadingPuiseux(fastFor(ctx).context as FastContext, source.edge.coupling, sign === 'plus' ? 1 : -1);
+      if (term && term.coefficient !== 0 && Math.abs(term.exponent - (exponentOfClass(response.class) as number)) < 1e-9) {
+        response.puiseux = term.coefficient;
+      }
+    }
     responses[sign] = response;
     traces[sign] = {
       magnitudes: eps.map(Math.abs),
@@ -232,13 +295,13 @@ export function auditPerturbation(
   }
 
   const sensitivity = baseline.firstOrder ? sensitivityOf(baseline.firstOrder, entries) : null;
-  const budget = toleranceBudget(ctx, entries, opts.tolerance, traces, weight, probe, ladderScale);
-  return { sensitivity, plus, minus, budget };
+  const budget = toleranceBudget(ctx, source, opts.tolerance, traces, weight, probe, ladderScale);
+  return { sensitivity, plus, minus, budget, fallbacks: source.fallbacks };
 }
 
 function toleranceBudget(
   ctx: SweepContext,
-  entries: EntryTerm[],
+  source: PointSource,
   tau: number,
   traces: Partial<Record<SweepSign, SignTrace>>,
   weight: number,
@@ -280,7 +343,7 @@ function toleranceBudget(
   const passes = (eps: number): boolean => {
     for (const s of sides) {
       const signed = s === 'plus' ? eps : -eps;
-      const { re } = evaluatePoint(ctx, entries, signed, 'none');
+      const { re } = source.point(signed, 'none');
       // A relative slack of 1e-9 keeps a prediction that lands exactly on the limit from failing by rounding.
       if (!(Math.abs(re - baseline.baselineRe) <= allowed * (1 + 1e-9))) {
         lastFailure = s;
@@ -324,11 +387,14 @@ export function auditEdge(
     sensitivity: result.sensitivity,
     plus: result.plus,
     minus: result.minus,
+    fallbacks: result.fallbacks,
   };
 }
 
 /** Shape the top of an audit document from a baseline and finished edge results. */
 export function assembleAudit(baseline: SpectralBaseline, edges: EdgeResult[], edgeCount: number): AuditResult {
+  const method = baseline.options.method;
+  const fallbackReason = method === 'fast' && baseline.fast && !baseline.fast.ok ? baseline.fast.reason : undefined;
   return {
     convention: baseline.convention,
     tolerance: baseline.options.tolerance,
@@ -344,6 +410,9 @@ export function assembleAudit(baseline: SpectralBaseline, edges: EdgeResult[], e
     condition: baseline.firstOrder ? baseline.firstOrder.condition : null,
     spectrum: baseline.spectrum,
     edges,
+    method,
+    fallbacks: edges.reduce((sum, e) => sum + (e.fallbacks ?? 0), 0),
+    ...(fallbackReason ? { fallbackReason } : {}),
   };
 }
 

@@ -44,6 +44,14 @@ export type SweepSign = 'plus' | 'minus';
  */
 export type NoiseFloorMode = 'auto' | 'transpose';
 
+/**
+ * How ladder points and budget checks are computed.
+ * - `fast` (default): the rank-one reduction of lib/spectral/fast — exact eigenvalues of the λ2
+ *   cluster from a small reduced problem, with direct (brute-force) solves only where a guard asks.
+ * - `exact`: a full eigen-solve of the perturbed Laplacian at every point.
+ */
+export type SweepMethod = 'fast' | 'exact';
+
 export interface SpectralOptions {
   convention?: Convention;
   ladder?: LadderSpec;
@@ -58,6 +66,8 @@ export interface SpectralOptions {
   noiseFloor?: NoiseFloorMode;
   /** Safety factor on the robust noise floor. Default 10. */
   floorSafety?: number;
+  /** Default 'fast'. */
+  method?: SweepMethod;
 }
 
 export interface ResolvedOptions {
@@ -68,6 +78,7 @@ export interface ResolvedOptions {
   clusterTolerance: number;
   noiseFloor: NoiseFloorMode;
   floorSafety: number;
+  method: SweepMethod;
 }
 
 export interface Complex {
@@ -150,6 +161,69 @@ export interface SpectralBaseline extends Reachability {
   /** Whether sweeps solve the transposed matrix for the noise floor. */
   transposeFloor: boolean;
   options: ResolvedOptions;
+  /**
+   * Per-network data of the fast sweep (block-diagonal Schur form; see fast/README in lib/spectral).
+   * Absent when the baseline was built with method 'exact'; `ok: false` when the fast path does not
+   * apply to this network (every point is then computed by full solves and counted as a fallback).
+   */
+  fast?: FastSpectralData;
+}
+
+/** One diagonal block of the block-diagonal Schur form L = V·diag(B₁, …)·V⁻¹. */
+export interface FastItem {
+  /** First column of the item in V (and first row of V⁻¹). */
+  start: number;
+  size: number;
+  /** `core`: the λ2 cluster; `real`/`pair`: one real eigenvalue or one conjugate pair; `block`: a group of close eigenvalues. */
+  kind: 'core' | 'real' | 'pair' | 'block';
+  /** The block B, row-major size×size. */
+  block: number[];
+  /** Its eigenvalues, re and im interleaved (length 2·size). */
+  values: number[];
+  /** Index in the baseline spectrum of each of those eigenvalues. */
+  spectrumIndex: number[];
+  /** For `pair`: right (e) and left (f) eigenvectors of B for the eigenvalue with im > 0, fᵀe = 1; (re, im) interleaved. */
+  pairVectors?: { e: number[]; f: number[] };
+}
+
+export interface FastSpectralData {
+  ok: boolean;
+  /** Why the fast path does not apply (when ok is false). */
+  reason?: string;
+  n: number;
+  /** Right basis V, row-major n×n. */
+  v: number[];
+  /** Left basis V⁻¹, transposed, row-major n×n: wt[r·n + k] = (V⁻¹)[k][r]. */
+  wt: number[];
+  /** items[0] is the λ2 cluster (the "core"). */
+  items: FastItem[];
+  /** Item holding the zero eigenvalue. */
+  zeroItem: number;
+  core: {
+    /** Eigenvalues in the core (conjugates counted). */
+    size: number;
+    /** Centre and radius of the core, conjugates identified. */
+    centre: Complex;
+    radius: number;
+    /** Distance from the centre to the nearest eigenvalue outside the core (zero set aside); null if none. */
+    gap: number | null;
+    /**
+     * Rounding at ε = 0, which anchors the fast path's noise floor: the spread of λ2 between the
+     * baseline's solves of L and Lᵀ, and the radius of the cluster's eigenvalues in the Schur form.
+     */
+    rawAtZero: number;
+    clusterRadius: number;
+    /** ‖P² − P‖_F of the core's spectral projector P, and ‖LX − XA‖_F of its basis. */
+    projectorDefect: number;
+    invarianceResidual: number;
+    /** The first `clusterSize` eigenvalues of the core are the baseline's rounding-split cluster (0 if none). */
+    clusterSize: number;
+    /**
+     * Solution R₁ of A_c R₁ − R₁ A_o = −A_x inside the core block [[A_c, A_x], [0, A_o]] (cluster
+     * first), row-major clusterSize × (size − clusterSize); null when not needed or not available.
+     */
+    clusterCoupling: number[] | null;
+  };
 }
 
 export type ResponseClass = 'linear' | 'square-root' | 'cube-root' | 'quadratic' | 'flat' | 'other';
@@ -202,6 +276,11 @@ export interface SignResponse {
   /** Largest point floor on this sign. */
   noiseFloor: number;
   points: LadderPoint[];
+  /**
+   * Fast path, root-type classes only: the leading Puiseux coefficient c of Δ ≈ c|ε|^p predicted by
+   * the reduced problem of the λ2 cluster (to set beside `prefactor`). Absent otherwise.
+   */
+  puiseux?: number;
 }
 
 export interface FirstOrderSensitivity {
@@ -242,6 +321,8 @@ export interface EdgeResult {
   sensitivity: FirstOrderSensitivity | null;
   plus: SignResponse | null;
   minus: SignResponse | null;
+  /** Points (ladder and budget checks) that the fast path handed to a full eigen-solve. 0 for method 'exact'. */
+  fallbacks?: number;
 }
 
 export interface ClusterSummary {
@@ -264,6 +345,12 @@ export interface AuditResult {
   condition: number | null;
   spectrum: Complex[];
   edges: EdgeResult[];
+  /** How the points were computed. */
+  method?: SweepMethod;
+  /** Sum of the edges' fallbacks. */
+  fallbacks?: number;
+  /** Why the fast path did not apply to this network at all (every point then fell back). */
+  fallbackReason?: string;
 }
 
 /** What the import step shows before any sweep: one eigen-solve. */
