@@ -45,22 +45,31 @@ export async function createBullmqPool(
       removeOnFail: { age: 7 * 24 * 3600 },
     },
   });
-  const events = new QueueEvents(settings.queue, { connection });
   let lastError = '';
   const onError = (err: Error) => {
     if (err.message !== lastError) log('job queue: Redis connection problem', err);
     lastError = err.message;
   };
   queue.on('error', onError);
-  events.on('error', onError);
-
-  try {
-    await withTimeout(Promise.all([queue.waitUntilReady(), events.waitUntilReady()]), connectTimeoutMs);
-  } catch (err) {
-    await Promise.allSettled([events.close(), queue.close()]);
-    throw new Error(
-      `cannot reach Redis at ${redactedUrl(settings.redisUrl)} (HAIRLINE_REDIS_URL): ${err instanceof Error ? err.message : String(err)}. Start redis-server or fix the URL.`,
+  const unreachable = (err: unknown) =>
+    new Error(
+      `cannot reach Redis at ${redactedUrl(settings.redisUrl!)} (HAIRLINE_REDIS_URL): ${err instanceof Error ? err.message : String(err)}. Start redis-server or fix the URL.`,
     );
+  try {
+    await withTimeout(queue.waitUntilReady(), connectTimeoutMs);
+  } catch (err) {
+    await queue.close().catch(() => {});
+    throw unreachable(err);
+  }
+  // Only once Redis answers: a QueueEvents that never connected cannot be closed.
+  const events = new QueueEvents(settings.queue, { connection });
+  events.on('error', onError);
+  try {
+    await withTimeout(events.waitUntilReady(), connectTimeoutMs);
+  } catch (err) {
+    void events.close().catch(() => {});
+    await queue.close().catch(() => {});
+    throw unreachable(err);
   }
 
   const workers = await queue.getWorkersCount().catch(() => -1);

@@ -116,7 +116,8 @@ export async function startQueueWorker(opts: QueueWorkerOptions): Promise<QueueW
   try {
     await withTimeout(worker.waitUntilReady(), 10_000);
   } catch (err) {
-    await worker.close(true).catch(() => {});
+    // A worker that never connected may not finish closing: do not wait long for it.
+    await Promise.race([worker.close(true).catch(() => {}), new Promise((r) => setTimeout(r, 1000).unref())]);
     throw new Error(`cannot reach Redis at ${redactedUrl(settings.redisUrl)} (HAIRLINE_REDIS_URL): ${err instanceof Error ? err.message : String(err)}`);
   }
   void worker.run().catch((err) => console.error(`[hairline worker] stopped: ${err instanceof Error ? err.message : String(err)}`));
