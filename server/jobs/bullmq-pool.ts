@@ -80,7 +80,8 @@ export async function createBullmqPool(
   /** Jobs dropped while a worker held them: removed when they finish. */
   const orphans = new Set<string>();
   const hashes = new WeakMap<SpectralNetwork, Map<SpectralOptions, string>>();
-  const stored = new Set<string>();
+  /** When this process last stored each run input in Redis, and the write (callers wait for it). */
+  const stored = new Map<string, { at: number; write: Promise<void> }>();
   let closed = false;
 
   const settle = (id: string, outcome: { value: string } | { error: Error }) => {
@@ -143,23 +144,23 @@ export async function createBullmqPool(
     if (!byOptions) hashes.set(network, (byOptions = new Map()));
     let hash = byOptions.get(options);
     if (!hash) {
-      const { hash: h, bytes } = serialiseInput({ network, options });
-      hash = h;
+      hash = serialiseInput({ network, options }).hash;
       byOptions.set(options, hash);
-      pendingInputs.set(hash, bytes);
     }
     return hash;
   };
-  const pendingInputs = new Map<string, Buffer>();
 
-  const storeInput = async (hash: string) => {
-    const bytes = pendingInputs.get(hash);
-    if (bytes && !stored.has(hash)) {
+  /** Puts a run's input in Redis, again when the copy there is half-way to expiring. */
+  const storeInput = async (hash: string, network: SpectralNetwork, options: SpectralOptions) => {
+    const last = stored.get(hash);
+    if (last && Date.now() - last.at < (INPUT_TTL_S * 1000) / 2) return last.write;
+    const write = (async () => {
       const client = await queue.client;
-      await client.set(inputKey(settings.queue, hash), bytes.toString('base64'), { EX: INPUT_TTL_S });
-      stored.add(hash);
-      pendingInputs.delete(hash);
-    }
+      await client.set(inputKey(settings.queue, hash), serialiseInput({ network, options }).bytes.toString('base64'), { EX: INPUT_TTL_S });
+    })();
+    stored.set(hash, { at: Date.now(), write });
+    write.catch(() => stored.delete(hash));
+    return write;
   };
 
   return {
@@ -169,7 +170,8 @@ export async function createBullmqPool(
     async run<T>(task: Task, ticket?: JobTicket): Promise<T> {
       if (closed) throw new JobDiscardedError('the job queue is closed');
       const group = ticket?.group ?? 'adhoc';
-      const wire = wireJobFor(task, () => inputHashOf((task as { network: SpectralNetwork }).network, (task as { options: SpectralOptions }).options));
+      const { network, options } = task as { network: SpectralNetwork; options: SpectralOptions };
+      const wire = wireJobFor(task, () => inputHashOf(network, options));
       // Without a ticket, two equal tasks may share one job: they have one answer.
       const id = jobIdFor(group, wire);
       const label = wire.kind === 'audit-chunk' ? `the chunk of edges ${span(wire.edges)}` : wire.kind === 'audit-baseline' ? 'the baseline' : `task ${id}`;
@@ -181,7 +183,7 @@ export async function createBullmqPool(
       if (!groups.has(group)) groups.set(group, new Set());
       groups.get(group)!.add(id);
       try {
-        if ('input' in wire) await storeInput(wire.input);
+        if ('input' in wire) await storeInput(wire.input, network, options);
         if (!waiters.has(id)) return result as Promise<T>; // dropped meanwhile
         await queue.add(wire.kind, wire, { jobId: id });
         if (!waiters.has(id)) {

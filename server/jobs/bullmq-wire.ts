@@ -33,7 +33,7 @@ const sha256 = (data: string | Buffer) => createHash('sha256').update(data).dige
 
 /** BullMQ's own key prefix; a run's input sits beside its queue's keys. */
 export const QUEUE_PREFIX = 'bull';
-/** A run's input outlives a week-long pause of every worker; each enqueue renews it. */
+/** How long a run's input stays in Redis; the server stores it again when half of that has passed. */
 export const INPUT_TTL_S = 7 * 24 * 3600;
 
 export function inputKey(queue: string, hash: string): string {
