@@ -21,6 +21,7 @@
 import type { FastContext } from './context';
 import type { EdgeCoupling } from './resolvent';
 import { outsideResolvent } from './resolvent';
+import { hyp } from './dense';
 
 /** |ε·h| must stay below this on the line (a margin under 1 for rounding). */
 export const CERTIFY_LEVEL = 0.9;
@@ -50,7 +51,7 @@ function poles(ctx: FastContext, cpl: EdgeCoupling, skip: Uint8Array): Pole[] {
   for (let i = 0; i < ctx.pairs.length; i++) {
     const k = ctx.pairs[i];
     if (skip[k]) continue;
-    const w = Math.hypot(cpl.pairBetaRe[i], cpl.pairBetaIm[i]);
+    const w = hyp(cpl.pairBetaRe[i], cpl.pairBetaIm[i]);
     if (w === 0) continue;
     out.push({ re: cpl.pairMuRe[i], im: cpl.pairMuIm[i], weight: w, item: k });
     out.push({ re: cpl.pairMuRe[i], im: -cpl.pairMuIm[i], weight: w, item: k });
@@ -64,19 +65,32 @@ function poles(ctx: FastContext, cpl: EdgeCoupling, skip: Uint8Array): Pole[] {
  */
 export function certifyHalfPlane(ctx: FastContext, cpl: EdgeCoupling, eps: number, s: number, skip: Uint8Array): Certificate {
   for (let i = 0; i < ctx.blocks.length; i++) if (!skip[ctx.blocks[i]]) return { ok: false, culprit: ctx.blocks[i], evaluations: 0 };
-  const ps = poles(ctx, cpl, skip);
   const ae = Math.abs(eps);
+  // First pass without allocation: poles in the half-plane, and the sum without cancellation.
   let crude = 0;
+  for (let i = 0; i < ctx.reals.length; i++) {
+    const k = ctx.reals[i];
+    const w = cpl.realBeta[i];
+    if (skip[k] || w === 0) continue;
+    const d = cpl.realLambda[i] - s;
+    if (!(d > 0)) return { ok: false, culprit: k, evaluations: 0 };
+    crude += Math.abs(w) / d;
+  }
+  for (let i = 0; i < ctx.pairs.length; i++) {
+    const k = ctx.pairs[i];
+    if (skip[k]) continue;
+    const d = cpl.pairMuRe[i] - s;
+    if (!(d > 0)) return { ok: false, culprit: k, evaluations: 0 };
+    crude += (2 * hyp(cpl.pairBetaRe[i], cpl.pairBetaIm[i])) / d;
+  }
+  if (ae * crude < CERTIFY_LEVEL) return { ok: true, evaluations: 0 };
+  const ps = poles(ctx, cpl, skip);
   let total = 0;
   let maxIm = 0;
   for (const p of ps) {
-    const d = p.re - s;
-    if (!(d > 0)) return { ok: false, culprit: p.item, evaluations: 0 };
-    crude += (ae * p.weight) / d;
     total += p.weight;
     maxIm = Math.max(maxIm, Math.abs(p.im));
   }
-  if (crude < CERTIFY_LEVEL) return { ok: true, evaluations: 0 };
   const Y = maxIm + 4 * ae * total + 1;
   const stack: [number, number][] = [[0, Y]];
   let evaluations = 0;
@@ -86,7 +100,7 @@ export function certifyHalfPlane(ctx: FastContext, cpl: EdgeCoupling, eps: numbe
     const r = 0.5 * (y1 - y0);
     if (++evaluations > CERTIFY_BUDGET) return { ok: false, culprit: culpritAt(ps, eps, s, ym), evaluations };
     const [hr, hi] = outsideResolvent(ctx, cpl, s, ym, skip);
-    const mid = ae * Math.hypot(hr, hi);
+    const mid = ae * hyp(hr, hi);
     if (!(mid < CERTIFY_LEVEL)) return { ok: false, culprit: culpritAt(ps, eps, s, ym), evaluations };
     let slope = 0;
     for (const p of ps) {
@@ -104,7 +118,7 @@ function culpritAt(ps: Pole[], eps: number, s: number, y: number): number {
   let best = -1;
   let bestW = 0;
   for (const p of ps) {
-    const w = (Math.abs(eps) * p.weight) / Math.hypot(p.re - s, p.im - y);
+    const w = (Math.abs(eps) * p.weight) / hyp(p.re - s, p.im - y);
     if (w > bestW) {
       bestW = w;
       best = p.item;

@@ -1,4 +1,5 @@
 /** Small complex linear systems M x = rhs by Gaussian elimination with partial pivoting (inputs kept). */
+import { hyp } from './dense';
 export function solveComplexSmall(
   mrIn: ArrayLike<number>,
   miIn: ArrayLike<number>,
@@ -12,9 +13,9 @@ export function solveComplexSmall(
   const xi = Float64Array.from(biIn);
   for (let c = 0; c < n; c++) {
     let p = c;
-    let best = Math.hypot(mr[c * n + c], mi[c * n + c]);
+    let best = hyp(mr[c * n + c], mi[c * n + c]);
     for (let r = c + 1; r < n; r++) {
-      const v = Math.hypot(mr[r * n + c], mi[r * n + c]);
+      const v = hyp(mr[r * n + c], mi[r * n + c]);
       if (v > best) {
         best = v;
         p = r;

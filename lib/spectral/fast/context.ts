@@ -3,6 +3,7 @@
  * object (a worker reuses it for every edge of its chunk).
  */
 import type { FastSpectralData, SpectralBaseline } from '../types';
+import { corePoles, type CorePoles } from './core-poles';
 
 export interface FastContext {
   n: number;
@@ -17,6 +18,9 @@ export interface FastContext {
   reals: Int32Array;
   pairs: Int32Array;
   blocks: Int32Array;
+  /** Position of an item in `reals` / `pairs` (−1 if it is not one). */
+  realIndex: Int32Array;
+  pairIndex: Int32Array;
   /** Baseline spectrum values of each item's eigenvalues (for matching). */
   itemValues: Float64Array[];
   /** Frobenius norms of each item's right and left basis. */
@@ -24,6 +28,15 @@ export interface FastContext {
   leftNorm: Float64Array;
   /** Size of the floor model's perturbation of the reduced matrix (set on first use, fast-edge.ts). */
   floorEta: number | null;
+  /** Items other than the core and the zero, sorted by the least real part of their eigenvalues. */
+  byRe: Int32Array;
+  /** Least real part per entry of byRe, and the widest real-part span of any item. */
+  byReMin: Float64Array;
+  reSpan: number;
+  /** The core in partial fractions when its eigenvectors are well conditioned (core-poles.ts). */
+  corePoles: CorePoles | null;
+  /** Own unperturbed λ2 minus the baseline's (set on first use, fast-edge.ts). */
+  referenceShift: number | null;
 }
 
 const contexts = new WeakMap<FastSpectralData, FastContext>();
@@ -68,6 +81,23 @@ export function fastContext(baseline: SpectralBaseline, data: FastSpectralData):
     });
     itemValues.push(vals);
   });
+  const order: number[] = [];
+  let reSpan = 0;
+  const minRe = new Float64Array(count);
+  itemValues.forEach((vals, k) => {
+    let lo = Infinity;
+    let hi = -Infinity;
+    for (let j = 0; j < vals.length; j += 2) {
+      lo = Math.min(lo, vals[j]);
+      hi = Math.max(hi, vals[j]);
+    }
+    minRe[k] = lo;
+    if (k > 0 && k !== data.zeroItem) {
+      order.push(k);
+      reSpan = Math.max(reSpan, hi - lo);
+    }
+  });
+  order.sort((a, b) => minRe[a] - minRe[b]);
   const ctx: FastContext = {
     n,
     v,
@@ -78,12 +108,20 @@ export function fastContext(baseline: SpectralBaseline, data: FastSpectralData):
     size,
     reals: Int32Array.from(reals),
     pairs: Int32Array.from(pairs),
+    realIndex: new Int32Array(count).fill(-1).map((_, k) => reals.indexOf(k)),
+    pairIndex: new Int32Array(count).fill(-1).map((_, k) => pairs.indexOf(k)),
     blocks: Int32Array.from(blocks),
     itemValues,
     rightNorm,
     leftNorm,
     floorEta: null,
+    byRe: Int32Array.from(order),
+    byReMin: Float64Array.from(order.map((k) => minRe[k])),
+    reSpan,
+    corePoles: null,
+    referenceShift: null,
   };
+  ctx.corePoles = corePoles(ctx);
   contexts.set(data, ctx);
   return ctx;
 }

@@ -5,6 +5,11 @@
 
 export const U = 2 ** -53;
 
+/** √(a² + b²) without Math.hypot's variadic overhead (inputs here are far from overflow). */
+export function hyp(a: number, b: number): number {
+  return Math.sqrt(a * a + b * b);
+}
+
 export function identity(n: number): Float64Array {
   const m = new Float64Array(n * n);
   for (let i = 0; i < n; i++) m[i * n + i] = 1;

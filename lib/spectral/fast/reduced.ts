@@ -19,6 +19,7 @@ import { outsideResolvent, type EdgeCoupling } from './resolvent';
 import { realSchur, blockLayout, eig2 } from './schur';
 import { complexEigenvalues } from './small-eig';
 import { solveComplexSmall } from './complex-solve';
+import { hyp } from './dense';
 
 export interface ReducedProblem {
   /** Item indices taken in exactly (core first). */
@@ -48,6 +49,7 @@ export interface ReducedRoots {
 }
 
 const FIXED_POINT_STEPS = 8;
+
 const NEWTON_STEPS = 40;
 
 export function reducedProblem(ctx: FastContext, cpl: EdgeCoupling, items: number[]): ReducedProblem {
@@ -118,7 +120,7 @@ function nearest(list: { re: Float64Array; im: Float64Array }, zr: number, zi: n
   let best = 0;
   let bd = Infinity;
   for (let i = 0; i < list.re.length; i++) {
-    const d = Math.hypot(list.re[i] - zr, list.im[i] - zi);
+    const d = hyp(list.re[i] - zr, list.im[i] - zi);
     if (d < bd) {
       bd = d;
       best = i;
@@ -181,7 +183,7 @@ function findRoot(ctx: FastContext, cpl: EdgeCoupling, rp: ReducedProblem, eps: 
     // A real branch keeps a real α (h is real on the real axis).
     if (zi === 0) ai = 0;
     const [nr, ni] = nearest(perturbedEigenvalues(rp, ar, ai), zr, zi);
-    const step = Math.hypot(nr - zr, ni - zi);
+    const step = hyp(nr - zr, ni - zi);
     if (step <= tol) return { re: nr, im: ni };
     if (step < bestStep) {
       bestStep = step;
@@ -207,7 +209,7 @@ function findRoot(ctx: FastContext, cpl: EdgeCoupling, rp: ReducedProblem, eps: 
     let sr = (fr * gr + fi * gi) / gg;
     let si = (fi * gr - fr * gi) / gg;
     if (zi === 0) si = 0;
-    const size = Math.hypot(sr, si);
+    const size = hyp(sr, si);
     // Damp long steps: never jump farther than a quarter of the scale of the reduced problem.
     const limit = 0.25 * (rp.scale + Math.abs(eps) * normProduct(rp));
     if (size > limit) {
@@ -310,7 +312,7 @@ function newtonHomotopy(ctx: FastContext, cpl: EdgeCoupling, rp: ReducedProblem,
   const at0 = phi(z0r, z0i, 0);
   const scale = rp.scale + Math.abs(eps) * normProduct(rp);
   // A start where Φ_0 does not vanish is an eigenvalue of A that does not couple: it stays.
-  if (!at0 || Math.abs(eps) * Math.hypot(at0[0], at0[1]) > 1e-6) return { re: z0r, im: z0i };
+  if (!at0 || Math.abs(eps) * hyp(at0[0], at0[1]) > 1e-6) return { re: z0r, im: z0i };
   const solve = (zr: number, zi: number, t: number): [number, number, number] | null => {
     for (let it = 0; it < 16; it++) {
       const f = phi(zr, zi, t);
@@ -321,7 +323,7 @@ function newtonHomotopy(ctx: FastContext, cpl: EdgeCoupling, rp: ReducedProblem,
       const si = zi === 0 && f[1] === 0 && f[3] === 0 ? 0 : (f[1] * f[2] - f[0] * f[3]) / gg;
       zr -= sr;
       zi -= si;
-      if (Math.hypot(sr, si) <= tol) return [zr, zi, it];
+      if (hyp(sr, si) <= tol) return [zr, zi, it];
     }
     return null;
   };
@@ -360,7 +362,7 @@ function closeUp(found: Root[], n: number, tol: number): Root[] | null {
       continue;
     }
     const u = { re: z.re, im: Math.abs(z.im) };
-    if (!uppers.some((w) => Math.hypot(w.re - u.re, w.im - u.im) <= eps)) uppers.push(u);
+    if (!uppers.some((w) => hyp(w.re - u.re, w.im - u.im) <= eps)) uppers.push(u);
   }
   if (reals.length + 2 * uppers.length !== n) return null;
   const out: Root[] = reals.map((re) => ({ re, im: 0 }));

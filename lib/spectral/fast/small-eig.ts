@@ -8,6 +8,7 @@
  * (the complex Schur decomposition). Backward stable like any QR-based solver, so a defective
  * eigenvalue is split by rounding exactly as in the full-size solve.
  */
+import { hyp } from './dense';
 
 export interface ComplexList {
   re: Float64Array;
@@ -19,7 +20,7 @@ const EPS = 2 ** -52;
 /** Principal square root of x + iy. */
 export function csqrt(x: number, y: number): [number, number] {
   if (x === 0 && y === 0) return [0, 0];
-  const r = Math.hypot(x, y);
+  const r = hyp(x, y);
   if (x >= 0) {
     const s = Math.sqrt(0.5 * (r + x));
     return [s, y / (2 * s)];
@@ -68,8 +69,8 @@ export function complexEigenvalues(reIn: ArrayLike<number>, imIn: ArrayLike<numb
     let l = top;
     while (l > 0) {
       const s =
-        Math.hypot(hr[(l - 1) * n + l - 1], hi[(l - 1) * n + l - 1]) + Math.hypot(hr[l * n + l], hi[l * n + l]);
-      if (Math.hypot(hr[l * n + l - 1], hi[l * n + l - 1]) <= EPS * s) {
+        hyp(hr[(l - 1) * n + l - 1], hi[(l - 1) * n + l - 1]) + hyp(hr[l * n + l], hi[l * n + l]);
+      if (hyp(hr[l * n + l - 1], hi[l * n + l - 1]) <= EPS * s) {
         hr[l * n + l - 1] = 0;
         hi[l * n + l - 1] = 0;
         break;
@@ -108,10 +109,10 @@ export function complexEigenvalues(reIn: ArrayLike<number>, imIn: ArrayLike<numb
     );
     const cr = hr[top * n + top];
     const ci = hi[top * n + top];
-    let mur = Math.hypot(s1r - cr, s1i - ci) <= Math.hypot(s2r - cr, s2i - ci) ? s1r : s2r;
-    let mui = Math.hypot(s1r - cr, s1i - ci) <= Math.hypot(s2r - cr, s2i - ci) ? s1i : s2i;
+    let mur = hyp(s1r - cr, s1i - ci) <= hyp(s2r - cr, s2i - ci) ? s1r : s2r;
+    let mui = hyp(s1r - cr, s1i - ci) <= hyp(s2r - cr, s2i - ci) ? s1i : s2i;
     if (iter % 10 === 0) {
-      const w = Math.hypot(hr[top * n + top - 1], hi[top * n + top - 1]);
+      const w = hyp(hr[top * n + top - 1], hi[top * n + top - 1]);
       mur = cr + 0.75 * w;
       mui = ci + 0.25 * w;
       s1r = s2r = s1i = s2i = 0;
@@ -131,7 +132,7 @@ function hessenbergComplex(hr: Float64Array, hi: Float64Array, n: number): void 
     const norm = Math.sqrt(norm2);
     const x0r = hr[(k + 1) * n + k];
     const x0i = hi[(k + 1) * n + k];
-    const a0 = Math.hypot(x0r, x0i);
+    const a0 = hyp(x0r, x0i);
     const phr = a0 === 0 ? 1 : x0r / a0;
     const phi = a0 === 0 ? 0 : x0i / a0;
     // α = −e^{iθ}‖x‖; v = x − α e1.
@@ -204,8 +205,8 @@ function qrStep(hr: Float64Array, hi: Float64Array, n: number, lo: number, top: 
     const ai = hi[k * n + k];
     const br = hr[(k + 1) * n + k];
     const bi = hi[(k + 1) * n + k];
-    const aa = Math.hypot(ar, ai);
-    const r = Math.hypot(aa, Math.hypot(br, bi));
+    const aa = hyp(ar, ai);
+    const r = hyp(aa, Math.hypot(br, bi));
     let c: number;
     let sr: number;
     let si: number;
