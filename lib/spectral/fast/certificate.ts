@@ -17,6 +17,11 @@
  *
  * A cheaper sufficient test comes first: Σ_k |ε β_k|/(Re λ_k − s) < 1 (no cancellation assumed);
  * at the ladder's small ε it nearly always settles the question without sampling.
+ *
+ * A grouped block B (nearly defective eigenvalues) contributes bᵀ(B − z)⁻¹a, bounded through
+ * ‖(B − z)⁻¹‖ ≤ Σ_{k<n} ν^k/δ^{k+1} (δ the distance from z to B's eigenvalues, ν its departure from
+ * normality; the Neumann series of a Schur form Λ + N, e.g. G. H. Golub & C. F. Van Loan, Matrix
+ * Computations, 4th ed., 2013, §7.2 — cited from memory), and its derivative by the square of that.
  */
 import type { FastContext } from './context';
 import type { EdgeCoupling } from './resolvent';
@@ -63,9 +68,55 @@ function poles(ctx: FastContext, cpl: EdgeCoupling, skip: Uint8Array): Pole[] {
  * Certify that 1 + ε·h has no zero in {Re z ≤ s}, h over the items not flagged in `skip`.
  * Grouped blocks outside R make the certificate fail with the block as culprit (they are taken in).
  */
+interface BlockBound {
+  item: number;
+  /** ‖a‖·‖b‖. */
+  ab: number;
+  nu: number;
+  size: number;
+  values: number[];
+}
+
+/** Σ_{k<n} ν^k/δ^{k+1} — the resolvent bound at distance δ. */
+function resolventBound(nu: number, size: number, delta: number): number {
+  let term = 1 / delta;
+  let sum = term;
+  for (let k = 1; k < size; k++) {
+    term *= nu / delta;
+    sum += term;
+  }
+  return sum;
+}
+
+function blockDistance(values: number[], zr: number, y0: number, y1: number): number {
+  let d = Infinity;
+  for (let j = 0; j < values.length; j += 2) {
+    const re = values[j];
+    const im = values[j + 1];
+    const dy = im < y0 ? y0 - im : im > y1 ? im - y1 : 0;
+    d = Math.min(d, Math.sqrt((re - zr) * (re - zr) + dy * dy));
+  }
+  return d;
+}
+
 export function certifyHalfPlane(ctx: FastContext, cpl: EdgeCoupling, eps: number, s: number, skip: Uint8Array): Certificate {
-  for (let i = 0; i < ctx.blocks.length; i++) if (!skip[ctx.blocks[i]]) return { ok: false, culprit: ctx.blocks[i], evaluations: 0 };
   const ae = Math.abs(eps);
+  const blocks: BlockBound[] = [];
+  for (let i = 0; i < ctx.blocks.length; i++) {
+    const k = ctx.blocks[i];
+    if (skip[k]) continue;
+    const st = ctx.start[k];
+    const n = ctx.size[k];
+    let an = 0;
+    let bn = 0;
+    for (let j = 0; j < n; j++) {
+      an += cpl.a[st + j] ** 2;
+      bn += cpl.b[st + j] ** 2;
+    }
+    const values = ctx.data.items[k].values;
+    for (let j = 0; j < values.length; j += 2) if (!(values[j] > s)) return { ok: false, culprit: k, evaluations: 0 };
+    blocks.push({ item: k, ab: Math.sqrt(an * bn), nu: ctx.departure[k], size: n, values });
+  }
   // First pass without allocation: poles in the half-plane, and the sum without cancellation.
   let crude = 0;
   for (let i = 0; i < ctx.reals.length; i++) {
@@ -83,6 +134,11 @@ export function certifyHalfPlane(ctx: FastContext, cpl: EdgeCoupling, eps: numbe
     if (!(d > 0)) return { ok: false, culprit: k, evaluations: 0 };
     crude += (2 * hyp(cpl.pairBetaRe[i], cpl.pairBetaIm[i])) / d;
   }
+  for (const b of blocks) {
+    let d = Infinity;
+    for (let j = 0; j < b.values.length; j += 2) d = Math.min(d, b.values[j] - s);
+    crude += b.ab * resolventBound(b.nu, b.size, d);
+  }
   if (ae * crude < CERTIFY_LEVEL) return { ok: true, evaluations: 0 };
   const ps = poles(ctx, cpl, skip);
   let total = 0;
@@ -91,6 +147,15 @@ export function certifyHalfPlane(ctx: FastContext, cpl: EdgeCoupling, eps: numbe
     total += p.weight;
     maxIm = Math.max(maxIm, Math.abs(p.im));
   }
+  for (const b of blocks) {
+    // Beyond Y every block is at distance ≥ 4|ε|·Σ(weights), so its bound is below its share too.
+    let d = Infinity;
+    for (let j = 0; j < b.values.length; j += 2) {
+      d = Math.min(d, b.values[j] - s);
+      maxIm = Math.max(maxIm, Math.abs(b.values[j + 1]));
+    }
+    total += b.ab * d * resolventBound(b.nu, b.size, d);
+  }
   const Y = maxIm + 4 * ae * total + 1;
   const stack: [number, number][] = [[0, Y]];
   let evaluations = 0;
@@ -98,23 +163,24 @@ export function certifyHalfPlane(ctx: FastContext, cpl: EdgeCoupling, eps: numbe
     const [y0, y1] = stack.pop() as [number, number];
     const ym = 0.5 * (y0 + y1);
     const r = 0.5 * (y1 - y0);
-    if (++evaluations > CERTIFY_BUDGET) return { ok: false, culprit: culpritAt(ps, eps, s, ym), evaluations };
+    if (++evaluations > CERTIFY_BUDGET) return { ok: false, culprit: culpritAt(ps, blocks, eps, s, ym), evaluations };
     const [hr, hi] = outsideResolvent(ctx, cpl, s, ym, skip);
     const mid = ae * hyp(hr, hi);
-    if (!(mid < CERTIFY_LEVEL)) return { ok: false, culprit: culpritAt(ps, eps, s, ym), evaluations };
+    if (!(mid < CERTIFY_LEVEL)) return { ok: false, culprit: culpritAt(ps, blocks, eps, s, ym), evaluations };
     let slope = 0;
     for (const p of ps) {
       const dy = p.im < y0 ? y0 - p.im : p.im > y1 ? p.im - y1 : 0;
       const d2 = (p.re - s) * (p.re - s) + dy * dy;
       slope += p.weight / d2;
     }
+    for (const b of blocks) slope += b.ab * resolventBound(b.nu, b.size, blockDistance(b.values, s, y0, y1)) ** 2;
     if (mid + ae * r * slope < CERTIFY_LEVEL) continue;
     stack.push([y0, ym], [ym, y1]);
   }
   return { ok: true, evaluations };
 }
 
-function culpritAt(ps: Pole[], eps: number, s: number, y: number): number {
+function culpritAt(ps: Pole[], blocks: BlockBound[], eps: number, s: number, y: number): number {
   let best = -1;
   let bestW = 0;
   for (const p of ps) {
@@ -122,6 +188,13 @@ function culpritAt(ps: Pole[], eps: number, s: number, y: number): number {
     if (w > bestW) {
       bestW = w;
       best = p.item;
+    }
+  }
+  for (const b of blocks) {
+    const w = Math.abs(eps) * b.ab * resolventBound(b.nu, b.size, blockDistance(b.values, s, y, y));
+    if (w > bestW) {
+      bestW = w;
+      best = b.item;
     }
   }
   return best;

@@ -37,6 +37,12 @@ export interface FastContext {
   corePoles: CorePoles | null;
   /** Own unperturbed λ2 minus the baseline's (set on first use, fast-edge.ts). */
   referenceShift: number | null;
+  /**
+   * Per item: departure from normality ν = √(‖B‖_F² − Σ|λ_i|²) of its block (= ‖N‖_F of any
+   * Schur form Λ + N; P. Henrici, Numer. Math. 4, 1962 — cited from memory), with a margin for the
+   * cancellation in the difference. Used to bound grouped blocks' resolvents (certificate.ts).
+   */
+  departure: Float64Array;
 }
 
 const contexts = new WeakMap<FastSpectralData, FastContext>();
@@ -120,6 +126,13 @@ export function fastContext(baseline: SpectralBaseline, data: FastSpectralData):
     reSpan,
     corePoles: null,
     referenceShift: null,
+    departure: Float64Array.from(data.items, (it) => {
+      let bb = 0;
+      for (const v of it.block) bb += v * v;
+      let ll = 0;
+      for (let j = 0; j < it.values.length; j += 2) ll += it.values[j] ** 2 + it.values[j + 1] ** 2;
+      return Math.sqrt(Math.max(0, bb - ll) + 1e-12 * bb);
+    }),
   };
   ctx.corePoles = corePoles(ctx);
   contexts.set(data, ctx);

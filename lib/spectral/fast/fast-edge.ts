@@ -28,6 +28,7 @@ import { scalarRoots } from './core-poles';
 import { certifyHalfPlane } from './certificate';
 import { complexEigenvalues } from './small-eig';
 import { U, hyp } from './dense';
+import { solveComplexSmall } from './complex-solve';
 
 export interface PointEvaluation {
   re: number;
@@ -63,10 +64,13 @@ export function observeFallbacks(fn: FallbackObserver | null): void {
   observer = fn;
 }
 
-const patterns = new Map<number, [Float64Array, Float64Array]>();
+const patterns = new Map<number, Float64Array[]>();
 
-/** Two fixed pseudo-random unit-Frobenius patterns of size m×m (deterministic). */
-function floorPatterns(m: number): [Float64Array, Float64Array] {
+/** Perturbation patterns used by the floor model. */
+export const FLOOR_PATTERNS = 4;
+
+/** FLOOR_PATTERNS fixed pseudo-random unit-Frobenius patterns of size m×m (deterministic). */
+function floorPatterns(m: number): Float64Array[] {
   let cached = patterns.get(m);
   if (cached) return cached;
   const make = (seed: number) => {
@@ -82,7 +86,7 @@ function floorPatterns(m: number): [Float64Array, Float64Array] {
     for (let i = 0; i < m * m; i++) e[i] *= inv;
     return e;
   };
-  cached = [make(0x5eed + m), make(0xf100 + 7 * m)];
+  cached = Array.from({ length: FLOOR_PATTERNS }, (_, k) => make(0x5eed + 7919 * k + m));
   patterns.set(m, cached);
   return cached;
 }
@@ -300,10 +304,32 @@ export class FastEdge {
     return { matched, matchedItem, radius };
   }
 
+  /**
+   * Raw error estimate of λ2 at this point: the larger of (a) how far λ2 of the reduced matrix
+   * moves under perturbations sized like the rounding seen at ε = 0 (anchored, floorEta), and
+   * (b) the first-order effect κ·η of a generic backward error η = 4u·‖L‖_F·(basis conditioning)
+   * on the λ2 root (κ its eigenvalue condition number in the reduced matrix), capped at a tenth of
+   * the root's distance to the nearest other root, where first order stops meaning anything.
+   */
   private modelFloor(sol: Solution): number {
     const { rp, roots, lambda2Root } = sol;
-    const eta = this.floorEta();
-    return modelSpread(rp, roots.alphaRe[lambda2Root], roots.alphaIm[lambda2Root], eta);
+    const ar = roots.alphaRe[lambda2Root];
+    const ai = roots.alphaIm[lambda2Root];
+    const anchored = modelSpread(rp, ar, ai, this.floorEta());
+    let right = 0;
+    let left = 0;
+    for (const k of rp.items) {
+      right += this.ctx.rightNorm[k] ** 2;
+      left += this.ctx.leftNorm[k] ** 2;
+    }
+    const generic = (4 * U * this.baseline.normF * Math.sqrt(right * left)) / rp.size;
+    const zr = roots.re[lambda2Root];
+    const zi = roots.im[lambda2Root];
+    let separation = Infinity;
+    for (let i = 0; i < roots.re.length; i++) if (i !== lambda2Root) separation = Math.min(separation, hyp(roots.re[i] - zr, roots.im[i] - zi));
+    const kappa = rootCondition(rp, ar, ai, zr, zi);
+    const firstOrder = Number.isFinite(kappa) ? Math.min(kappa * generic, 0.1 * separation) : 0;
+    return Math.max(anchored, firstOrder);
   }
 
   /**
@@ -331,17 +357,21 @@ export class FastEdge {
   }
 }
 
-/** Spread of λ2 of A + α·q·pᵀ under two fixed perturbation patterns of Frobenius size η. */
+/**
+ * How far λ2 of M = A + α·q·pᵀ moves under fixed perturbation patterns of Frobenius size η: the
+ * largest move over FLOOR_PATTERNS patterns (one pattern, or the difference of two, can come out
+ * small by chance).
+ */
 function modelSpread(rp: ReducedProblem, ar: number, ai: number, eta: number): number {
   const m = rp.size;
-  const [e1, e2] = floorPatterns(m);
-  const lambda2 = (pattern: Float64Array): [number, number] => {
+  const patterns = floorPatterns(m);
+  const lambda2 = (pattern: Float64Array | null): [number, number] => {
     const mr = new Float64Array(m * m);
     const mi = new Float64Array(m * m);
     for (let r = 0; r < m; r++) {
       for (let c = 0; c < m; c++) {
         const qp = rp.q[r] * rp.p[c];
-        mr[r * m + c] = rp.a[r * m + c] + ar * qp + eta * pattern[r * m + c];
+        mr[r * m + c] = rp.a[r * m + c] + ar * qp + (pattern ? eta * pattern[r * m + c] : 0);
         mi[r * m + c] = ai * qp;
       }
     }
@@ -350,7 +380,56 @@ function modelSpread(rp: ReducedProblem, ar: number, ai: number, eta: number): n
     for (let i = 1; i < m; i++) if (ev.re[i] < ev.re[best] || (ev.re[i] === ev.re[best] && ev.im[i] > ev.im[best])) best = i;
     return [ev.re[best], ev.im[best]];
   };
-  const [x1, y1] = lambda2(e1);
-  const [x2, y2] = lambda2(e2);
-  return folded(x1, y1, x2, y2);
+  const [x0, y0] = lambda2(null);
+  let spread = 0;
+  for (const pattern of patterns) {
+    const [x, y] = lambda2(pattern);
+    spread = Math.max(spread, folded(x, y, x0, y0));
+  }
+  return spread;
+}
+
+/** Eigenvalue condition number ‖x‖‖y‖/|yᵀx| of the root z of M = A + α·q·pᵀ (inverse iteration just off z). */
+function rootCondition(rp: ReducedProblem, ar: number, ai: number, zr: number, zi: number): number {
+  const m = rp.size;
+  if (m === 1) return 1;
+  const mr = new Float64Array(m * m);
+  const mi = new Float64Array(m * m);
+  const tr = new Float64Array(m * m);
+  const ti = new Float64Array(m * m);
+  let scale = 0;
+  for (let r = 0; r < m; r++) {
+    for (let c = 0; c < m; c++) {
+      const qp = rp.q[r] * rp.p[c];
+      mr[r * m + c] = rp.a[r * m + c] + ar * qp;
+      mi[r * m + c] = ai * qp;
+      scale = Math.max(scale, hyp(mr[r * m + c], mi[r * m + c]));
+    }
+  }
+  const shift = 1e3 * U * Math.max(scale, Number.MIN_VALUE);
+  for (let r = 0; r < m; r++) {
+    mr[r * m + r] -= zr + shift;
+    mi[r * m + r] -= zi;
+  }
+  for (let r = 0; r < m; r++) for (let c = 0; c < m; c++) {
+    tr[c * m + r] = mr[r * m + c];
+    ti[c * m + r] = mi[r * m + c];
+  }
+  const ones = new Float64Array(m).fill(1);
+  const zeros = new Float64Array(m);
+  const x = solveComplexSmall(mr, mi, ones, zeros, m);
+  const y = solveComplexSmall(tr, ti, ones, zeros, m);
+  if (!x || !y) return Infinity;
+  let xn = 0;
+  let yn = 0;
+  let dr = 0;
+  let di = 0;
+  for (let i = 0; i < m; i++) {
+    xn += x.re[i] ** 2 + x.im[i] ** 2;
+    yn += y.re[i] ** 2 + y.im[i] ** 2;
+    dr += y.re[i] * x.re[i] - y.im[i] * x.im[i];
+    di += y.re[i] * x.im[i] + y.im[i] * x.re[i];
+  }
+  const k = Math.sqrt(xn * yn) / hyp(dr, di);
+  return Number.isFinite(k) ? k : Infinity;
 }

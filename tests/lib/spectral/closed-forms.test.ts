@@ -102,7 +102,8 @@ describe('4-cycle 1→2→3→4→1 with chords 1→3 and 1→4 (unit weights)',
   // λ = 0, 2, 2, 2 in one Jordan block of size 3 (rank(L − 2I) = 3). With λ = 2 + μ, the factor
   // beside (μ + 2) of det(L − λI) is (expanded with sympy, roots worked out by hand):
   //   1→2:            μ³ − εμ² + εμ − ε ⇒ μ³ ≈ ε:  +ε min Re = −ε^(1/3)/2, −ε min Re = −|ε|^(1/3)
-  //   1→3:            μ³ − εμ² − ε      ⇒ μ³ ≈ −ε: +ε min Re = −ε^(1/3),   −ε min Re = −|ε|^(1/3)/2
+  //   1→3:            μ³ − εμ² + ε      ⇒ μ³ ≈ −ε: +ε min Re = −ε^(1/3),   −ε min Re = −|ε|^(1/3)/2
+  //                   (sign of the constant corrected after re-expanding with sympy in issue 7)
   //   1→4:            μ(μ² − εμ − ε)    ⇒ +ε −√ε; −ε complex pair with Re = −|ε|/2
   //   2→3, 3→4, 4→1:  μ²(μ − ε)         ⇒ +ε flat; −ε linear, c = −1
   // Exponents 1/3 for a 3-block per Lidskii–Vishik–Lyusternik (Moro, Burke & Overton, SIAM J. Matrix
