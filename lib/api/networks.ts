@@ -19,11 +19,13 @@ export function useNetworks(q: string, sort: NetworkSort) {
   });
 }
 
+/** Polls while any version's spectrum is still being computed, so its state tag follows. */
 export function useNetwork(id: number) {
   return useQuery({
     queryKey: ['network', id],
     queryFn: () => apiRequest(networkDetailSchema, `/networks/${id}`),
     enabled: Number.isFinite(id),
+    refetchInterval: (q) => (q.state.data?.versions.some((v) => v.summaryState === 'pending') ? 2000 : false),
   });
 }
 
