@@ -16,9 +16,17 @@ import { decompose, foldedDistance, lambda2Of, leastRealIndex, toMatrix, zeroInd
 import { branchIndices, findCluster, UNIT_ROUNDOFF, type ClusterFinding } from './cluster';
 import { firstOrderData } from './sensitivity';
 import { buildFastData } from './fast/projector';
+import { realSchur, schurEigenvalues, type RealSchur } from './fast/schur';
+import { firstOrderFromFast } from './fast/first-order';
 
 /** Above this condition number λ2 is treated as nearly defective: floors come from the transposed solve. */
 export const CONDITION_FOR_TRANSPOSE_FLOOR = 1e3;
+
+function transposeFlat(a: number[], n: number): number[] {
+  const t = new Array<number>(n * n);
+  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) t[j * n + i] = a[i * n + j];
+  return t;
+}
 
 function valuesOf(decomposition: EigenvalueDecomposition): EigenvalueList {
   return { re: decomposition.realEigenvalues, im: decomposition.imaginaryEigenvalues };
@@ -66,10 +74,27 @@ export function analyseBaseline(network: SpectralNetwork, options: SpectralOptio
   const meanWeight = meanPositiveWeight(weights);
   const reach = analyseReachability(network.nodes, slots, weights);
 
-  const direct = decompose(toMatrix(laplacian, n));
-  const transposed = decompose(toMatrix(laplacian, n, true));
-  const values = sortedValues(valuesOf(direct));
-  const tValues = valuesOf(transposed);
+  // The exact method takes the spectrum, and λ2's eigenvectors, from two full eigen-decompositions
+  // (of L and Lᵀ). The fast method reads them off its own real Schur form of L — which it needs
+  // anyway — and an eigenvalues-only Schur form of Lᵀ, the two computations that round differently.
+  let direct: EigenvalueDecomposition | null = null;
+  let transposed: EigenvalueDecomposition | null = null;
+  let schur: RealSchur | null = null;
+  let rawValues: EigenvalueList;
+  let tValues: EigenvalueList;
+  try {
+    if (opts.method !== 'fast') throw new Error('exact');
+    schur = realSchur(laplacian, n);
+    rawValues = schurEigenvalues(schur.t, n);
+    tValues = schurEigenvalues(realSchur(transposeFlat(laplacian, n), n, false).t, n);
+  } catch {
+    schur = null;
+    direct = decompose(toMatrix(laplacian, n));
+    transposed = decompose(toMatrix(laplacian, n, true));
+    rawValues = valuesOf(direct);
+    tValues = valuesOf(transposed);
+  }
+  const values = sortedValues(rawValues);
   const zeroIndex = zeroIndexOf(values);
   const lambda2Index = leastRealIndex(values, zeroIndex);
   const scale = matrixScale(maxDegree);
@@ -92,14 +117,8 @@ export function analyseBaseline(network: SpectralNetwork, options: SpectralOptio
 
   const simple = cluster.size === 1 || cluster.resolved;
   const lambda2Computed = { re: values.re[lambda2Index], im: values.im[lambda2Index] };
-  const firstOrder = reach.rooted && simple ? firstOrderData(direct, transposed, lambda2Computed) : null;
   const reTie = 1e3 * UNIT_ROUNDOFF * scale;
   const branches = branchIndices(values, zeroIndex, cluster.members, reTie, cluster.spread);
-  const transposeFloor =
-    opts.noiseFloor === 'transpose' ||
-    !firstOrder ||
-    !(firstOrder.condition <= CONDITION_FOR_TRANSPOSE_FLOOR) ||
-    cluster.size > 1;
 
   const baseline: SpectralBaseline = {
     convention: opts.convention,
@@ -118,8 +137,8 @@ export function analyseBaseline(network: SpectralNetwork, options: SpectralOptio
     baselineNoise,
     cluster: { size: cluster.size, spread: cluster.spread, members: cluster.members, resolved: cluster.resolved },
     branches,
-    firstOrder,
-    transposeFloor,
+    firstOrder: null,
+    transposeFloor: true,
     options: opts,
   };
   // The fast sweep's per-network data (ordered Schur form, block-diagonal basis), computed once here
@@ -127,7 +146,21 @@ export function analyseBaseline(network: SpectralNetwork, options: SpectralOptio
   if (opts.method === 'fast') {
     const other = reach.rooted ? lambda2Of(tValues) : { re: 0, im: 0 };
     const rawAtZero = reach.rooted ? foldedDistance(lambda2Computed.re, lambda2Computed.im, other.re, other.im) : 0;
-    baseline.fast = buildFastData(baseline, rawAtZero);
+    baseline.fast = buildFastData(baseline, rawAtZero, schur ?? undefined);
   }
+  if (reach.rooted && simple) {
+    baseline.firstOrder = baseline.fast ? firstOrderFromFast(baseline.fast, lambda2Index) : null;
+    if (!baseline.firstOrder) {
+      direct ??= decompose(toMatrix(laplacian, n));
+      transposed ??= decompose(toMatrix(laplacian, n, true));
+      baseline.firstOrder = firstOrderData(direct, transposed, lambda2Computed);
+    }
+  }
+  const firstOrder = baseline.firstOrder;
+  baseline.transposeFloor =
+    opts.noiseFloor === 'transpose' ||
+    !firstOrder ||
+    !(firstOrder.condition <= CONDITION_FOR_TRANSPOSE_FLOOR) ||
+    cluster.size > 1;
   return baseline;
 }

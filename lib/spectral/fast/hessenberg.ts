@@ -8,8 +8,8 @@
  */
 import { identity } from './dense';
 
-/** Overwrites `a` (n×n, row-major) with its Hessenberg form and returns Q. */
-export function reduceToHessenberg(a: Float64Array, n: number): Float64Array {
+/** Overwrites `a` (n×n, row-major) with its Hessenberg form and returns Q (identity if `vectors` is false). */
+export function reduceToHessenberg(a: Float64Array, n: number, vectors = true): Float64Array {
   const q = identity(n);
   const v = new Float64Array(n);
   const w = new Float64Array(n);
@@ -42,7 +42,7 @@ export function reduceToHessenberg(a: Float64Array, n: number): Float64Array {
       for (let j = k; j < n; j++) a[row + j] -= f * w[j];
     }
     // Right: A[:, k+1:] -= beta·(A v)·vᵀ, and the same on Q.
-    for (const m of [a, q]) {
+    for (const m of vectors ? [a, q] : [a]) {
       for (let i = 0; i < n; i++) {
         const row = i * n;
         let s = 0;

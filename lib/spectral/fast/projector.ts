@@ -13,7 +13,7 @@
  * rounding-split defective eigenvalue thus stays whole.
  */
 import type { Complex, FastItem, FastSpectralData, SpectralBaseline } from '../types';
-import { blockLayout, eig2, realSchur } from './schur';
+import { blockLayout, eig2, realSchur, type RealSchur } from './schur';
 import { swapAdjacent } from './reorder';
 import { blockDiagonalise, type ItemRange } from './blocks';
 import { solveSylvester } from './sylvester';
@@ -187,13 +187,14 @@ function coreByLinkage(units: Unit[], seeds: Uint8Array, zeroUnit: number, w: nu
 /**
  * @param rawAtZero spread of λ2 between the baseline's solves of L and Lᵀ (anchors noise floors)
  */
-export function buildFastData(baseline: SpectralBaseline, rawAtZero = 0): FastSpectralData {
+export function buildFastData(baseline: SpectralBaseline, rawAtZero = 0, precomputed?: RealSchur): FastSpectralData {
   const n = baseline.n;
   if (!baseline.rooted) return failed(n, 'not rooted: several zero eigenvalues');
   if (n < 2) return failed(n, 'too small');
-  let schur;
+  let schur: RealSchur;
   try {
-    schur = realSchur(baseline.laplacian, n);
+    // A Schur form handed in is reordered in place below.
+    schur = precomputed ?? realSchur(baseline.laplacian, n);
   } catch {
     return failed(n, 'Schur form did not converge');
   }

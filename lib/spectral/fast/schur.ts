@@ -37,6 +37,23 @@ export function blockLayout(t: Float64Array, n: number): { start: number; size: 
   return out;
 }
 
+/** Eigenvalues read off the diagonal blocks of a quasi-triangular matrix. */
+export function schurEigenvalues(t: Float64Array, n: number): { re: number[]; im: number[] } {
+  const re: number[] = [];
+  const im: number[] = [];
+  for (const { start: s, size } of blockLayout(t, n)) {
+    if (size === 1) {
+      re.push(t[s * n + s]);
+      im.push(0);
+    } else {
+      const e = eig2(t[s * n + s], t[s * n + s + 1], t[(s + 1) * n + s], t[(s + 1) * n + s + 1]);
+      re.push(e.re1, e.re2);
+      im.push(e.im, -e.im);
+    }
+  }
+  return { re, im };
+}
+
 /** Eigenvalues of a 2×2 block [[a, b], [c, d]] (complex pair: re ± i·im with im ≥ 0). */
 export function eig2(a: number, b: number, c: number, d: number): { re1: number; re2: number; im: number } {
   const p = 0.5 * (a - d);
@@ -105,10 +122,14 @@ function house3(x: number, y: number, z: number): [number, number, number, numbe
   return [v0, y, z, 2 / vtv];
 }
 
-/** Real Schur form of a dense real matrix (row-major, not modified). Throws if QR does not converge. */
-export function realSchur(matrix: ArrayLike<number>, n: number): RealSchur {
+/**
+ * Real Schur form of a dense real matrix (row-major, not modified). Throws if QR does not converge.
+ * With `vectors` false the orthogonal factor is not accumulated (eigenvalues only; q is then the
+ * Hessenberg reduction's factor alone and must not be used).
+ */
+export function realSchur(matrix: ArrayLike<number>, n: number, vectors = true): RealSchur {
   const h = Float64Array.from(matrix);
-  const q = reduceToHessenberg(h, n);
+  const q = reduceToHessenberg(h, n, vectors);
   let norm = 0;
   for (let i = 0; i < n; i++) for (let j = Math.max(0, i - 1); j < n; j++) norm += Math.abs(h[i * n + j]);
   let hi = n - 1;
@@ -187,7 +208,7 @@ export function realSchur(matrix: ArrayLike<number>, n: number): RealSchur {
           h[ri + k + 1] -= f * v1;
           h[ri + k + 2] -= f * v2;
         }
-        for (let i = 0; i < n; i++) {
+        for (let i = 0; vectors && i < n; i++) {
           const ri = i * n;
           const f = beta * (q[ri + k] * v0 + q[ri + k + 1] * v1 + q[ri + k + 2] * v2);
           q[ri + k] -= f * v0;
@@ -221,7 +242,7 @@ export function realSchur(matrix: ArrayLike<number>, n: number): RealSchur {
         h[ri + k] -= f * v0;
         h[ri + k + 1] -= f * v1;
       }
-      for (let i = 0; i < n; i++) {
+      for (let i = 0; vectors && i < n; i++) {
         const ri = i * n;
         const f = beta * (q[ri + k] * v0 + q[ri + k + 1] * v1);
         q[ri + k] -= f * v0;
@@ -230,6 +251,7 @@ export function realSchur(matrix: ArrayLike<number>, n: number): RealSchur {
     }
   }
   // Clean everything below the quasi-triangular structure.
+  void vectors;
   for (let i = 1; i < n; i++) for (let j = 0; j < i - 1; j++) h[i * n + j] = 0;
   return { n, t: h, q };
 }
