@@ -162,7 +162,7 @@ export interface SpectralBaseline extends Reachability {
   transposeFloor: boolean;
   options: ResolvedOptions;
   /**
-   * Per-network data of the fast sweep (block-diagonal Schur form; see fast/README in lib/spectral).
+   * Per-network data of the fast sweep (block-diagonal Schur form; see lib/spectral/README.md).
    * Absent when the baseline was built with method 'exact'; `ok: false` when the fast path does not
    * apply to this network (every point is then computed by full solves and counted as a fallback).
    */
