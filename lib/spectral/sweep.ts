@@ -45,7 +45,8 @@ import { leadingPuiseux } from './fast/puiseux';
 
 interface SweepContext {
   baseline: SpectralBaseline;
-  workspace: PerturbationWorkspace;
+  /** Full-solve workspace, made on first use (the fast path may never need it). */
+  workspace: () => PerturbationWorkspace;
   branchSet: Set<number>;
   slots: EdgeSlot[];
   /** Fast-path data, built on first use when the baseline does not carry it. */
@@ -61,9 +62,10 @@ function contextFor(network: SpectralNetwork, baseline: SpectralBaseline): Sweep
   if (network.nodes.length !== baseline.n) {
     throw new SpectralInputError('network and baseline disagree on the number of nodes');
   }
+  let workspace: PerturbationWorkspace | null = null;
   const context: SweepContext = {
     baseline,
-    workspace: new PerturbationWorkspace(baseline.laplacian, baseline.n),
+    workspace: () => (workspace ??= new PerturbationWorkspace(baseline.laplacian, baseline.n)),
     branchSet: new Set(baseline.branches),
     slots: edgeSlots(network, baseline.convention),
   };
@@ -184,7 +186,8 @@ function pointSource(ctx: SweepContext, entries: EntryTerm[], method: SweepMetho
  * Mᵀ as well, 'condition' uses the baseline's condition number.
  */
 function evaluatePoint(ctx: SweepContext, terms: EntryTerm[], eps: number, floor: 'none' | 'transpose' | 'condition'): PointEvaluation {
-  const { baseline, workspace, branchSet } = ctx;
+  const { baseline, branchSet } = ctx;
+  const workspace = ctx.workspace();
   const values = workspace.solve(terms, eps);
   const z = zeroIndexOf(values);
   const l = leastRealIndex(values, z);

@@ -187,6 +187,8 @@ export interface FastItem {
 }
 
 export interface FastSpectralData {
+  /** Content key (hash of the Laplacian and the core choice): workers cache their working form by it. */
+  key: string;
   ok: boolean;
   /** Why the fast path does not apply (when ok is false). */
   reason?: string;

@@ -46,12 +46,21 @@ export interface FastContext {
 }
 
 const contexts = new WeakMap<FastSpectralData, FastContext>();
+/**
+ * Also by content key: a server sends every chunk of edges with its own structured clone of the
+ * baseline, so the same data arrives as new objects; the working form is rebuilt once per network.
+ */
+const byKey = new Map<string, FastContext>();
+const KEYED = 4;
 
 const KIND = { core: 0, real: 1, pair: 2, block: 3 } as const;
 
 export function fastContext(baseline: SpectralBaseline, data: FastSpectralData): FastContext {
-  const cached = contexts.get(data);
-  if (cached) return cached;
+  const cached = contexts.get(data) ?? (data.key ? byKey.get(data.key) : undefined);
+  if (cached && cached.n === data.n) {
+    contexts.set(data, cached);
+    return cached;
+  }
   const n = data.n;
   const v = Float64Array.from(data.v);
   const wt = Float64Array.from(data.wt);
@@ -136,5 +145,9 @@ export function fastContext(baseline: SpectralBaseline, data: FastSpectralData):
   };
   ctx.corePoles = corePoles(ctx);
   contexts.set(data, ctx);
+  if (data.key) {
+    byKey.set(data.key, ctx);
+    while (byKey.size > KEYED) byKey.delete(byKey.keys().next().value as string);
+  }
   return ctx;
 }

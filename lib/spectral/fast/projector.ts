@@ -41,6 +41,7 @@ interface Unit {
 
 function failed(n: number, reason: string): FastSpectralData {
   return {
+    key: '',
     ok: false,
     reason,
     n,
@@ -92,6 +93,22 @@ function matchToSpectrum(units: Unit[], spectrum: Complex[]): boolean {
     if (matched === entries.length) break;
   }
   return matched === entries.length;
+}
+
+/** A 64-bit FNV-1a style hash (two 32-bit halves) of the Laplacian's bits and the core's items. */
+function contentKey(baseline: SpectralBaseline, items: FastItem[]): string {
+  const bits = new Uint32Array(Float64Array.from(baseline.laplacian).buffer);
+  let h1 = 0x811c9dc5;
+  let h2 = 0x01000193;
+  const mix = (x: number) => {
+    h1 = Math.imul(h1 ^ x, 0x01000193);
+    h2 = Math.imul(h2 ^ x, 0x5bd1e995) ^ (h2 >>> 15);
+  };
+  for (let i = 0; i < bits.length; i++) mix(bits[i]);
+  mix(baseline.n);
+  for (const it of items) mix(it.start * 131 + it.size);
+  for (const b of items[0].spectrumIndex) mix(b);
+  return `${(h1 >>> 0).toString(16)}${(h2 >>> 0).toString(16)}-${baseline.n}-${items.length}`;
 }
 
 function folded(re: number, im: number): [number, number] {
@@ -438,6 +455,7 @@ export function buildFastData(baseline: SpectralBaseline, rawAtZero = 0, precomp
   }
 
   return {
+    key: contentKey(baseline, items),
     ok: true,
     n,
     v: plain(v),
