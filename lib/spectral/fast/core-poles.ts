@@ -401,7 +401,7 @@ export function scalarRoots(ctx: FastContext, cpl: EdgeCoupling, cp: CorePoles, 
       if (z.im !== 0) list.push({ re: z.re, im: -z.im });
     }
     if (list.length !== count) {
-      const odd = found.find((z, i) => z.im !== 0) ?? found[0];
+      const odd = found.find((z) => z.im !== 0) ?? found[0];
       stuck = [odd.re, odd.im];
       return null;
     }

@@ -16,11 +16,6 @@ export function identity(n: number): Float64Array {
   return m;
 }
 
-/** Row-major copy of a flat number array. */
-export function toFloat(flat: ArrayLike<number>): Float64Array {
-  return Float64Array.from(flat);
-}
-
 /** C = A·B for square n×n row-major matrices. */
 export function multiply(a: Float64Array, b: Float64Array, n: number): Float64Array {
   const c = new Float64Array(n * n);
@@ -40,12 +35,6 @@ export function transpose(a: Float64Array, n: number): Float64Array {
   const t = new Float64Array(n * n);
   for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) t[j * n + i] = a[i * n + j];
   return t;
-}
-
-export function frobenius(a: ArrayLike<number>): number {
-  let s = 0;
-  for (let i = 0; i < a.length; i++) s += a[i] * a[i];
-  return Math.sqrt(s);
 }
 
 /**

@@ -39,7 +39,7 @@ export interface PointEvaluation {
 export type FloorKind = 'none' | 'transpose' | 'condition';
 
 /** Largest reduced problem (eigenvalues) before a point is handed to a full solve. */
-export const MAX_REDUCED = 24;
+export const MAX_REDUCED = 40;
 /** Rounds of taking eigenvalues into the reduced problem before a point is handed to a full solve. */
 export const MAX_ROUNDS = 16;
 
