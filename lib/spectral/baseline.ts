@@ -8,10 +8,8 @@
  */
 import type { EigenvalueDecomposition } from 'ml-matrix';
 import type { Complex, SpectralBaseline, SpectralNetwork, SpectralOptions } from './types';
-import { resolveOptions } from './options';
-import { SpectralInputError } from './errors';
-import { buildLaplacian, edgeSlots, frobeniusNorm, maxDiagonal, meanPositiveWeight } from './laplacian';
-import { analyseReachability } from './reachability';
+import { frobeniusNorm, maxDiagonal } from './laplacian';
+import { prepareNetwork } from './prepare';
 import { decompose, foldedDistance, lambda2Of, leastRealIndex, toMatrix, zeroIndexOf, type EigenvalueList } from './spectrum';
 import { branchIndices, findCluster, UNIT_ROUNDOFF, type ClusterFinding } from './cluster';
 import { firstOrderData } from './sensitivity';
@@ -63,16 +61,9 @@ function baselineFromOtherSolve(values: EigenvalueList, size: number, resolved: 
 }
 
 export function analyseBaseline(network: SpectralNetwork, options: SpectralOptions = {}): SpectralBaseline {
-  const opts = resolveOptions(options);
-  const slots = edgeSlots(network, opts.convention);
-  const n = network.nodes.length;
-  if (n < 2) throw new SpectralInputError('a network needs at least two nodes to have a λ2');
-  const weights = network.edges.map((e) => e.weight);
-  const laplacian = buildLaplacian(n, slots, weights);
+  const { opts, n, weights, laplacian, meanWeight, reach } = prepareNetwork(network, options);
   const normF = frobeniusNorm(laplacian);
   const maxDegree = maxDiagonal(laplacian, n);
-  const meanWeight = meanPositiveWeight(weights);
-  const reach = analyseReachability(network.nodes, slots, weights);
 
   // The exact method takes the spectrum, and λ2's eigenvectors, from two full eigen-decompositions
   // (of L and Lᵀ). The fast method reads them off its own real Schur form of L — which it needs

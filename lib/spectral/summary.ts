@@ -6,23 +6,14 @@
  * baseline (two solves) may, in rare near-degenerate cases, report the computed λ2 instead.
  */
 import type { NetworkSummary, SpectralNetwork, SpectralOptions } from './types';
-import { resolveOptions } from './options';
-import { SpectralInputError } from './errors';
-import { buildLaplacian, edgeSlots, maxDiagonal, meanPositiveWeight } from './laplacian';
-import { analyseReachability } from './reachability';
+import { maxDiagonal } from './laplacian';
+import { prepareNetwork } from './prepare';
 import { leastRealIndex, solveEigenvalues, toMatrix, zeroIndexOf } from './spectrum';
 import { findCluster } from './cluster';
 import { matrixScale, sortedValues } from './baseline';
 
 export function summariseNetwork(network: SpectralNetwork, options: SpectralOptions = {}): NetworkSummary {
-  const opts = resolveOptions(options);
-  const slots = edgeSlots(network, opts.convention);
-  const n = network.nodes.length;
-  if (n < 2) throw new SpectralInputError('a network needs at least two nodes to have a λ2');
-  const weights = network.edges.map((e) => e.weight);
-  const laplacian = buildLaplacian(n, slots, weights);
-  const meanWeight = meanPositiveWeight(weights);
-  const reach = analyseReachability(network.nodes, slots, weights);
+  const { opts, n, weights, laplacian, meanWeight, reach } = prepareNetwork(network, options);
   const values = sortedValues(solveEigenvalues(toMatrix(laplacian, n)));
   const zeroIndex = zeroIndexOf(values);
   const lambda2Index = leastRealIndex(values, zeroIndex);
