@@ -12,7 +12,7 @@ interface IconProps {
 export function NavIcon({ name, size = 22, color }: IconProps) {
   const stroke = { stroke: color, strokeWidth: 1.6, fill: 'none', strokeLinecap: 'round' as const };
   return (
-    <Svg width={size} height={size} viewBox="0 0 24 24" accessibilityElementsHidden importantForAccessibility="no">
+    <Svg width={size} height={size} viewBox="0 0 24 24" aria-hidden>
       {name === 'overview' && (
         <>
           <Rect x={3.5} y={3.5} width={17} height={17} rx={2} {...stroke} />
