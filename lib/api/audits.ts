@@ -2,7 +2,6 @@ import { keepPreviousData, useMutation, useQuery, useQueryClient } from '@tansta
 import {
   auditDetailSchema,
   auditListSchema,
-  auditSummarySchema,
   edgeDetailSchema,
   edgePageSchema,
   edgeRowSchema,
@@ -103,8 +102,12 @@ export function useAuditTrail(id: number, enabled = true) {
 export function useStartAudit() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: StartAudit) => apiRequest(auditSummarySchema, '/audits', json('POST', body)),
-    onSuccess: () => qc.invalidateQueries({ queryKey: ['audits'] }),
+    mutationFn: (body: StartAudit) => apiRequest(auditDetailSchema, '/audits', json('POST', body)),
+    onSuccess: (detail) => {
+      // The audit's page opens on this answer (queued, its bar at zero) and polls from there.
+      qc.setQueryData(['audit', detail.id], detail);
+      return qc.invalidateQueries({ queryKey: ['audits'] });
+    },
   });
 }
 

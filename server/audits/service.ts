@@ -80,7 +80,12 @@ export async function auditDetail(deps: AuditDeps, user: RequestUser, id: number
   };
 }
 
-export async function startAudit(deps: AuditDeps, user: RequestUser, input: ReturnType<typeof startAuditSchema.parse>): Promise<AuditSummary> {
+/**
+ * Creates the audit and starts its sweep. The answer is the audit's full
+ * detail as it stands before the sweep begins (queued, nothing swept), so the
+ * page it opens shows the run from its first frame instead of a loading state.
+ */
+export async function startAudit(deps: AuditDeps, user: RequestUser, input: ReturnType<typeof startAuditSchema.parse>): Promise<AuditDetail> {
   const version = await deps.db('network_versions').where({ network_id: input.networkId, version: input.version }).first('id', 'edge_count');
   if (!version) throw new HttpError(404, 'not-found', `Network ${input.networkId} has no version ${input.version}.`);
   const settings = auditSettingsSchema.parse(input.settings);
@@ -89,8 +94,9 @@ export async function startAudit(deps: AuditDeps, user: RequestUser, input: Retu
     await recordEvent(trx, { actorId: user.id, action: 'audit.started', subjectType: 'audit', subjectId: auditId, newValue: settings }, deps.now());
     return auditId;
   });
+  const detail = await auditDetail(deps, user, id);
   void deps.runner.start(id);
-  return summaryOf(deps, await load(deps, id));
+  return detail;
 }
 
 export async function listAudits(deps: AuditDeps, filter: { states?: string[]; networkId?: number }): Promise<AuditSummary[]> {

@@ -6,6 +6,7 @@ import { silentNotifier } from '../../server/audits/notify';
 import { edgesCsv, neutraliseFormula } from '../../server/audits/export-csv';
 import { accountsWorld, signedIn, type AccountsWorld } from './support/accounts';
 import { startAndFinish } from './support/audits';
+import { auditDetailSchema } from '../../lib/schemas/audit';
 
 describe('audit runs: cancel, resume, trail check', () => {
   let w: AccountsWorld;
@@ -23,6 +24,9 @@ describe('audit runs: cancel, resume, trail check', () => {
     expect(imported.status).toBe(201);
     const started = await analyst.post('/api/v1/audits').send({ networkId: imported.body.networkId, version: 1, settings: { ladder: { from: 2, to: 4, step: 1 }, signs: ['plus'] } });
     expect(started.status).toBe(201);
+    // The answer is the audit's detail before its sweep begins: the page it opens can show the run at once.
+    expect(auditDetailSchema.parse(started.body)).toMatchObject({ state: 'queued', progress: { done: 0, total: 180 }, lambda2: null });
+    expect(started.body.allowed).toContain('cancel');
     const res = await analyst.post(`/api/v1/audits/${started.body.id}/cancel`).send({});
     expect(res.status).toBe(200);
     expect(res.body.state).toBe('cancelled');
