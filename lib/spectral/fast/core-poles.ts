@@ -15,6 +15,8 @@ import { outsideResolvent } from './resolvent';
 import { complexEigenvalues } from './small-eig';
 import { solveComplexSmall } from './complex-solve';
 import { hyp, U } from './dense';
+import { dampedNewton, type ValueAndSlope } from './damped-newton';
+import { rootsWithAlpha } from './root-alpha';
 
 export interface CorePoles {
   m: number;
@@ -171,7 +173,7 @@ export function scalarRoots(ctx: FastContext, cpl: EdgeCoupling, cp: CorePoles, 
   const ae = Math.abs(eps);
   const tol = 64 * U * (scale + ae);
   /** F and F′ at z (h over all outside items, the core through its residues). */
-  const F = (zr: number, zi: number): [number, number, number, number] => {
+  const F: ValueAndSlope = (zr, zi) => {
     const [hr, hi, hdr, hdi] = outsideResolvent(ctx, cpl, zr, zi, none);
     let fr = hr;
     let fi = hi;
@@ -190,47 +192,15 @@ export function scalarRoots(ctx: FastContext, cpl: EdgeCoupling, cp: CorePoles, 
     }
     return [1 + eps * fr, eps * fi, eps * gr, eps * gi];
   };
-  const newton = (zr: number, zi: number, real: boolean, limit: number): [number, number] | null => {
-    for (let it = 0; it < 30; it++) {
-      const [fr, fi, gr, gi] = F(zr, zi);
-      const gg = gr * gr + gi * gi;
-      if (!(gg > 0) || !Number.isFinite(gg)) return null;
-      let sr = (fr * gr + fi * gi) / gg;
-      let si = real ? 0 : (fi * gr - fr * gi) / gg;
-      const size = hyp(sr, si);
-      if (size > limit) {
-        sr *= limit / size;
-        si *= limit / size;
-      }
-      zr -= sr;
-      zi -= si;
-      if (size <= tol) return [zr, zi];
-    }
-    return null;
-  };
+  const newton = (zr: number, zi: number, real: boolean, limit: number): [number, number] | null => dampedNewton(F, zr, zi, real, limit, tol);
   /** Newton on 1 + t·ε·S(z) (t = 1: F itself). */
   const newtonAt = (t: number, zr: number, zi: number, real: boolean, limit: number): [number, number] | null => {
-    for (let it = 0; it < 30; it++) {
-      const [fr, fi, gr, gi] = F(zr, zi);
-      // F = 1 + εS  ⇒  1 + tεS = 1 + t(F − 1), derivative t·F′.
-      const ar = 1 + t * (fr - 1);
-      const ai = t * fi;
-      const br2 = t * gr;
-      const bi2 = t * gi;
-      const gg = br2 * br2 + bi2 * bi2;
-      if (!(gg > 0) || !Number.isFinite(gg)) return null;
-      let sr = (ar * br2 + ai * bi2) / gg;
-      let si = real ? 0 : (ai * br2 - ar * bi2) / gg;
-      const size = hyp(sr, si);
-      if (size > limit) {
-        sr *= limit / size;
-        si *= limit / size;
-      }
-      zr -= sr;
-      zi -= si;
-      if (size <= tol) return [zr, zi];
-    }
-    return null;
+    // F = 1 + εS  ⇒  1 + tεS = 1 + t(F − 1), derivative t·F′.
+    const scaled: ValueAndSlope = (wr, wi) => {
+      const [fr, fi, gr, gi] = F(wr, wi);
+      return [1 + t * (fr - 1), t * fi, t * gr, t * gi];
+    };
+    return dampedNewton(scaled, zr, zi, real, limit, tol);
   };
   /** Distance from pole j to the nearest other pole of the sum (core and outside). */
   const poleGap = (j: number): number => {
@@ -411,25 +381,8 @@ export function scalarRoots(ctx: FastContext, cpl: EdgeCoupling, cp: CorePoles, 
   if (!list) return { ok: false, stuckRe: stuck[0], stuckIm: stuck[1], re: new Float64Array(0), im: new Float64Array(0), alphaRe: new Float64Array(0), alphaIm: new Float64Array(0) };
   const skipR = new Uint8Array(ctx.data.items.length);
   for (const k of extra) skipR[k] = 1;
-  const out: ScalarRoots = {
-    ok: true,
-    re: new Float64Array(count),
-    im: new Float64Array(count),
-    alphaRe: new Float64Array(count),
-    alphaIm: new Float64Array(count),
-  };
-  list.forEach((z, i) => {
-    // α at the root with h over the items outside R (as the matrix form defines it).
-    const [hr, hi] = outsideResolvent(ctx, cpl, z.re, z.im, skipR);
-    const dr = 1 + eps * hr;
-    const di = eps * hi;
-    const dd = dr * dr + di * di;
-    out.re[i] = z.re;
-    out.im[i] = z.im;
-    out.alphaRe[i] = (eps * dr) / dd;
-    out.alphaIm[i] = z.im === 0 ? 0 : (-eps * di) / dd;
-  });
-  return out;
+  // α at the root with h over the items outside R (as the matrix form defines it).
+  return rootsWithAlpha(ctx, cpl, eps, list, skipR);
 }
 
 const noSkips = new WeakMap<FastContext, Uint8Array>();

@@ -20,6 +20,7 @@ import { realSchur, blockLayout, eig2 } from './schur';
 import { complexEigenvalues } from './small-eig';
 import { solveComplexSmall } from './complex-solve';
 import { hyp } from './dense';
+import { alphaAt, rootsWithAlpha } from './root-alpha';
 
 export interface ReducedProblem {
   /** Item indices taken in exactly (core first). */
@@ -175,15 +176,11 @@ function findRoot(ctx: FastContext, cpl: EdgeCoupling, rp: ReducedProblem, eps: 
   let prevAr = NaN;
   let prevAi = NaN;
   for (let it = 0; it < FIXED_POINT_STEPS; it++) {
-    const [hr, hi] = outsideResolvent(ctx, cpl, zr, zi, rp.skip);
-    const dr = 1 + eps * hr;
-    const di = eps * hi;
-    const dd = dr * dr + di * di;
-    let ar = (eps * dr) / dd;
-    let ai = (-eps * di) / dd;
-    if (!Number.isFinite(ar) || !Number.isFinite(ai)) break;
+    const alpha = alphaAt(ctx, cpl, eps, zr, zi, rp.skip);
+    if (!Number.isFinite(alpha[0]) || !Number.isFinite(alpha[1])) break;
+    const ar = alpha[0];
     // A real branch keeps a real α (h is real on the real axis).
-    if (zi === 0) ai = 0;
+    const ai = zi === 0 ? 0 : alpha[1];
     const [nr, ni] = nearest(perturbedEigenvalues(rp, ar, ai), zr, zi);
     const step = hyp(nr - zr, ni - zi);
     if (step <= tol) return { re: nr, im: ni };
@@ -258,7 +255,7 @@ export function solveReduced(ctx: FastContext, cpl: EdgeCoupling, rp: ReducedPro
     }
     if (!settled) break;
     const closed = closeUp(found, n, tol);
-    if (closed) return finish(ctx, cpl, rp, eps, closed);
+    if (closed) return rootsWithAlpha(ctx, cpl, eps, closed, rp.skip);
   }
   // Some branch did not settle, or jumped onto another's root (typically near a collision at this ε): follow every
   // branch from t = 0 to 1 along α_t(z) = ε/(1 + t·ε·h(z)) instead, by Newton's method on
@@ -279,31 +276,9 @@ export function solveReduced(ctx: FastContext, cpl: EdgeCoupling, rp: ReducedPro
     tracked.push(z);
   }
   const closed = closeUp(tracked, n, tol);
-  if (closed) return finish(ctx, cpl, rp, eps, closed);
+  if (closed) return rootsWithAlpha(ctx, cpl, eps, closed, rp.skip);
   const at = odd ?? tracked[0];
   return { ...fail('branches merged'), stuckRe: at.re, stuckIm: at.im };
-}
-
-function finish(ctx: FastContext, cpl: EdgeCoupling, rp: ReducedProblem, eps: number, closed: Root[]): ReducedRoots {
-  const n = rp.size;
-  const out: ReducedRoots = {
-    ok: true,
-    re: new Float64Array(n),
-    im: new Float64Array(n),
-    alphaRe: new Float64Array(n),
-    alphaIm: new Float64Array(n),
-  };
-  closed.forEach((z, i) => {
-    const [hr, hi] = outsideResolvent(ctx, cpl, z.re, z.im, rp.skip);
-    const dr = 1 + eps * hr;
-    const di = eps * hi;
-    const dd = dr * dr + di * di;
-    out.re[i] = z.re;
-    out.im[i] = z.im;
-    out.alphaRe[i] = (eps * dr) / dd;
-    out.alphaIm[i] = z.im === 0 ? 0 : (-eps * di) / dd;
-  });
-  return out;
 }
 
 /**
