@@ -1,8 +1,9 @@
 /**
  * Small networks whose λ2 response is known in closed form.
  */
-import { auditNetwork, analyseBaseline, auditEdge, type EdgeResult, type SpectralNetwork } from '@/lib/spectral';
-import { edgeIndex, net, rank, relErr, shifted } from './helpers';
+import { auditNetwork, analyseBaseline, auditEdge, type EdgeResult } from '@/lib/spectral';
+import { edgeIndex, rank, relErr, shifted } from './helpers';
+import { chainWithProbe, fourCycleWithChords, triangleWithChord } from './networks';
 
 function find(edges: EdgeResult[], source: string, target: string): EdgeResult {
   const e = edges.find((x) => x.source === source && x.target === target);
@@ -14,11 +15,7 @@ describe('chain a → b → c with the absent back edge c → b as a probe', () 
   // Source of the check: the issue text's closed form, re-derived by hand from the characteristic
   // polynomial of the 2×2 block [[1+ε, −ε], [−1, 1]]: μ² − (2+ε)μ + 1 = 0, so
   // Re λ2 = 1 + ε/2 − √(ε + ε²/4) for ε > 0 (real pair) and 1 + ε/2 (complex pair) for −4 < ε < 0.
-  const chain = net([
-    ['a', 'b', 1],
-    ['b', 'c', 1],
-    ['c', 'b', 0],
-  ]);
+  const chain = chainWithProbe();
   const result = auditNetwork(chain);
   const probe = find(result.edges, 'c', 'b');
 
@@ -56,16 +53,10 @@ describe('triangle 1→2, 2→3, 3→1 plus 2→1 (unit weights)', () => {
   // The exponents are those of Lidskii–Vishik–Lyusternik theory (J. Moro, J. V. Burke & M. L. Overton,
   // "On the Lidskii–Vishik–Lyusternik perturbation theory for eigenvalues of matrices with arbitrary
   // Jordan structure", SIAM J. Matrix Anal. Appl. 18, 1997).
-  const tri = net([
-    ['1', '2', 1],
-    ['2', '3', 1],
-    ['3', '1', 1],
-    ['2', '1', 1],
-  ]);
-  const result = auditNetwork(tri);
+  const result = auditNetwork(triangleWithChord);
 
   it('has eigenvalues 0, 2, 2 and a rank-2 L − 2I', () => {
-    expect(rank(shifted(analyseBaseline(tri).laplacian, 3, 2), 3)).toBe(2);
+    expect(rank(shifted(analyseBaseline(triangleWithChord).laplacian, 3, 2), 3)).toBe(2);
     expect(result.cluster.size).toBe(2);
     expect(result.lambda2.re).toBeCloseTo(2, 12);
     expect(Math.min(...result.spectrum.map((z) => Math.abs(z.re)))).toBeLessThan(1e-12);
@@ -108,21 +99,13 @@ describe('4-cycle 1→2→3→4→1 with chords 1→3 and 1→4 (unit weights)',
   //   2→3, 3→4, 4→1:  μ²(μ − ε)         ⇒ +ε flat; −ε linear, c = −1
   // Exponents 1/3 for a 3-block per Lidskii–Vishik–Lyusternik (Moro, Burke & Overton, SIAM J. Matrix
   // Anal. Appl. 18, 1997); classes as listed in issue 3.
-  const cyc: SpectralNetwork = net([
-    ['1', '2', 1],
-    ['2', '3', 1],
-    ['3', '4', 1],
-    ['4', '1', 1],
-    ['1', '3', 1],
-    ['1', '4', 1],
-  ]);
-  const result = auditNetwork(cyc);
+  const result = auditNetwork(fourCycleWithChords);
 
   it('has a triple eigenvalue 2 with a single eigenvector (one Jordan block)', () => {
     expect(result.cluster.size).toBe(3);
     expect(result.lambda2.re).toBeCloseTo(2, 12);
     // One Jordan block ⇔ a single eigenvector ⇔ rank(L − 2I) = n − 1 = 3.
-    expect(rank(shifted(analyseBaseline(cyc).laplacian, 4, 2), 4)).toBe(3);
+    expect(rank(shifted(analyseBaseline(fourCycleWithChords).laplacian, 4, 2), 4)).toBe(3);
   });
 
   it.each([
@@ -156,8 +139,8 @@ describe('4-cycle 1→2→3→4→1 with chords 1→3 and 1→4 (unit weights)',
   });
 
   it('auditing one edge alone gives the same answer as the whole sweep', () => {
-    const b = analyseBaseline(cyc);
-    const single = auditEdge(cyc, b, edgeIndex(cyc, '1', '3'));
+    const b = analyseBaseline(fourCycleWithChords);
+    const single = auditEdge(fourCycleWithChords, b, edgeIndex(fourCycleWithChords, '1', '3'));
     expect(single).toEqual(find(result.edges, '1', '3'));
   });
 });

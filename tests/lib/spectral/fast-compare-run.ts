@@ -10,28 +10,7 @@
  */
 import { analyseBaseline, auditEdge, jordanCoreNetwork, randomNetwork, type SpectralNetwork } from '@/lib/spectral';
 import { compareEdges } from './compare';
-
-interface Report {
-  name: string;
-  nodes: number;
-  edges: number;
-  compared: number;
-  defective: boolean;
-  clusterSize: number;
-  coreSize: number;
-  projectorDefect: number;
-  issues: string[];
-  maxDiff: number;
-  maxUsedDiff: number;
-  maxCleanDiff: number;
-  maxBudgetRelDiff: number;
-  fallbacksCompared: number;
-  /** Whole-network fast audit. */
-  fallbacks: number;
-  points: number;
-  fastSeconds: number;
-  exactSeconds: number;
-}
+import type { FastCompareReport as Report } from './fast-compare-report';
 
 function spread(count: number, total: number): number[] {
   return Array.from({ length: count }, (_, i) => Math.floor(((i + 0.5) * total) / count));

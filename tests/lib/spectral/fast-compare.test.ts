@@ -8,25 +8,7 @@
 import { spawnSync } from 'node:child_process';
 import path from 'node:path';
 import { REPO } from './cli-run';
-
-interface Report {
-  name: string;
-  compared: number;
-  defective: boolean;
-  clusterSize: number;
-  coreSize: number;
-  projectorDefect: number;
-  issues: string[];
-  maxUsedDiff: number;
-  maxCleanDiff: number;
-  maxBudgetRelDiff: number;
-  fallbacksCompared: number;
-  fallbacks: number;
-  points: number;
-  edges: number;
-  fastSeconds: number;
-  exactSeconds: number;
-}
+import type { FastCompareReport as Report } from './fast-compare-report';
 
 let reports: Report[] = [];
 

@@ -20,10 +20,9 @@ import {
 } from '@/lib/spectral';
 import { edgeIndex, net, relErr, type EdgeRow } from './helpers';
 import { compareEdges } from './compare';
+import { chainWithProbe, fourCycleWithChords, triangleWithChord, triangleWithListeners } from './networks';
 
-const triangle = net([['1', '2', 1], ['2', '3', 1], ['3', '1', 1], ['2', '1', 1]]);
-const fourCycle = net([['1', '2', 1], ['2', '3', 1], ['3', '4', 1], ['4', '1', 1], ['1', '3', 1], ['1', '4', 1]]);
-const chainProbe = net([['a', 'b', 1], ['b', 'c', 1], ['c', 'b', 0]]);
+const chainProbe = chainWithProbe();
 
 function undirected(pairs: [string, string, number][]): SpectralNetwork {
   const rows: EdgeRow[] = [];
@@ -40,16 +39,16 @@ function demo(file: string): SpectralNetwork {
 /** Every small network of the engine's tests, plus the three demo networks. */
 const SMALL: [string, SpectralNetwork, SpectralOptions | undefined][] = [
   ['chain with a probe (Jordan 2)', chainProbe, undefined],
-  ['triangle with a chord (Jordan 2)', triangle, undefined],
-  ['4-cycle with two chords (Jordan 3)', fourCycle, undefined],
-  ['triangle with listeners', net([['1', '2', 1], ['2', '3', 1], ['3', '1', 1], ['2', '1', 1], ['1', '4', 1.5], ['3', '4', 1.7], ['4', '5', 2.6], ['2', '5', 0.9]]), undefined],
+  ['triangle with a chord (Jordan 2)', triangleWithChord, undefined],
+  ['4-cycle with two chords (Jordan 3)', fourCycleWithChords, undefined],
+  ['triangle with listeners', triangleWithListeners, undefined],
   ['DAG with a near tie (identity change)', net([['r', 'a', 1], ['r', 'b', 1.002]]), undefined],
-  ['near-degenerate chain (crossover)', net([['a', 'b', 1.01], ['b', 'c', 1], ['c', 'b', 0]]), undefined],
+  ['near-degenerate chain (crossover)', chainWithProbe(1.01), undefined],
   ['light edge (truncated minus side)', net([['a', 'b', 1], ['b', 'c', 1], ['c', 'a', 1e-4]]), undefined],
   ['undirected 5-cycle (semisimple double λ2)', undirected([['a', 'b', 1], ['b', 'c', 1], ['c', 'd', 1], ['d', 'e', 1], ['e', 'a', 1]]), undefined],
   ['directed 13-cycle', net(Array.from({ length: 13 }, (_, i) => [`v${i}`, `v${(i + 1) % 13}`, 1] as EdgeRow)), undefined],
   ['random N = 8', randomNetwork({ nodes: 8, edgesPerNode: 3, seed: 77 }), undefined],
-  ['triangle, out-degree convention', triangle, { convention: 'out' }],
+  ['triangle, out-degree convention', triangleWithChord, { convention: 'out' }],
   ['Gannet Sound buoy relay (demo)', demo('gannet-sound-buoy-relay.csv'), undefined],
   ['Marrow Fen microgrid (demo)', demo('marrow-fen-microgrid.csv'), undefined],
   ['Quarry Lane depots (demo)', demo('quarry-lane-depots.csv'), undefined],
@@ -57,12 +56,12 @@ const SMALL: [string, SpectralNetwork, SpectralOptions | undefined][] = [
 
 describe('method option', () => {
   it('the fast path is the default; the exact path stays callable', () => {
-    const fast = auditNetwork(triangle);
+    const fast = auditNetwork(triangleWithChord);
     expect(fast.method).toBe('fast');
-    expect(analyseBaseline(triangle).fast?.ok).toBe(true);
-    const exact = auditNetwork(triangle, { method: 'exact' });
+    expect(analyseBaseline(triangleWithChord).fast?.ok).toBe(true);
+    const exact = auditNetwork(triangleWithChord, { method: 'exact' });
     expect(exact.method).toBe('exact');
-    expect(analyseBaseline(triangle, { method: 'exact' }).fast).toBeUndefined();
+    expect(analyseBaseline(triangleWithChord, { method: 'exact' }).fast).toBeUndefined();
     expect(exact.edges.every((e) => e.fallbacks === 0)).toBe(true);
     expect(fast.fallbacks).toBe(fast.edges.reduce((s, e) => s + (e.fallbacks ?? 0), 0));
   });
@@ -116,13 +115,13 @@ describe('fast values against closed forms, with floors that bound the fast path
   // point's error must stay within its own floor.
   const cases: [string, string, string, SpectralNetwork, (e: number) => number][] = [
     ['chain probe', 'c', 'b', chainProbe, (e) => (e > 0 ? e / 2 - Math.sqrt(e + (e * e) / 4) : e / 2)],
-    ['triangle', '2', '1', triangle, (e) => leastRealRoot([1, -e, -e])],
-    ['triangle', '2', '3', triangle, (e) => leastRealRoot([1, -e, e])],
-    ['triangle', '1', '2', triangle, (e) => Math.min(0, e)],
-    ['4-cycle', '1', '2', fourCycle, (e) => leastRealRoot([1, -e, e, -e])],
-    ['4-cycle', '1', '3', fourCycle, (e) => leastRealRoot([1, -e, 0, e])],
-    ['4-cycle', '1', '4', fourCycle, (e) => Math.min(0, leastRealRoot([1, -e, -e]))],
-    ['4-cycle', '2', '3', fourCycle, (e) => Math.min(0, e)],
+    ['triangle', '2', '1', triangleWithChord, (e) => leastRealRoot([1, -e, -e])],
+    ['triangle', '2', '3', triangleWithChord, (e) => leastRealRoot([1, -e, e])],
+    ['triangle', '1', '2', triangleWithChord, (e) => Math.min(0, e)],
+    ['4-cycle', '1', '2', fourCycleWithChords, (e) => leastRealRoot([1, -e, e, -e])],
+    ['4-cycle', '1', '3', fourCycleWithChords, (e) => leastRealRoot([1, -e, 0, e])],
+    ['4-cycle', '1', '4', fourCycleWithChords, (e) => Math.min(0, leastRealRoot([1, -e, -e]))],
+    ['4-cycle', '2', '3', fourCycleWithChords, (e) => Math.min(0, e)],
   ];
   it.each(cases)('%s, edge %s→%s', (_, s, t, network, exact) => {
     const e = auditEdge(network, analyseBaseline(network), edgeIndex(network, s, t));
@@ -137,13 +136,13 @@ describe('leading Puiseux coefficient of root-type edges', () => {
   // (cube-root), c the least real part over the roots (see closed-forms.test.ts).
   it.each([
     ['chain probe', 'c', 'b', 'plus', -1, chainProbe],
-    ['triangle', '2', '1', 'plus', -1, triangle],
-    ['triangle', '2', '3', 'minus', -1, triangle],
-    ['4-cycle', '1', '2', 'plus', -0.5, fourCycle],
-    ['4-cycle', '1', '2', 'minus', -1, fourCycle],
-    ['4-cycle', '1', '3', 'plus', -1, fourCycle],
-    ['4-cycle', '1', '3', 'minus', -0.5, fourCycle],
-    ['4-cycle', '1', '4', 'plus', -1, fourCycle],
+    ['triangle', '2', '1', 'plus', -1, triangleWithChord],
+    ['triangle', '2', '3', 'minus', -1, triangleWithChord],
+    ['4-cycle', '1', '2', 'plus', -0.5, fourCycleWithChords],
+    ['4-cycle', '1', '2', 'minus', -1, fourCycleWithChords],
+    ['4-cycle', '1', '3', 'plus', -1, fourCycleWithChords],
+    ['4-cycle', '1', '3', 'minus', -0.5, fourCycleWithChords],
+    ['4-cycle', '1', '4', 'plus', -1, fourCycleWithChords],
   ] as const)('%s %s→%s, %s side: c = %p', (_, s, t, side, c, network) => {
     const e = auditEdge(network, analyseBaseline(network), edgeIndex(network, s, t));
     const response = e[side] as SignResponse;
@@ -153,7 +152,7 @@ describe('leading Puiseux coefficient of root-type edges', () => {
   });
 
   it('linear and flat sides carry none', () => {
-    const e = auditEdge(triangle, analyseBaseline(triangle), edgeIndex(triangle, '1', '2'));
+    const e = auditEdge(triangleWithChord, analyseBaseline(triangleWithChord), edgeIndex(triangleWithChord, '1', '2'));
     expect(e.plus?.class).toBe('flat');
     expect(e.minus?.class).toBe('linear');
     expect(e.plus?.puiseux).toBeUndefined();

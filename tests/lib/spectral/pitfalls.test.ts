@@ -4,18 +4,7 @@
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import { analyseBaseline, auditEdge, auditNetwork, buildLaplacian, edgeSlots, summariseNetwork, type SignResponse } from '@/lib/spectral';
 import { edgeIndex, net, relErr } from './helpers';
-
-/** Triangle 1→2, 2→3, 3→1, 2→1 (Jordan block at 2) plus two listeners with larger in-degrees. */
-const triangleWithListeners = net([
-  ['1', '2', 1],
-  ['2', '3', 1],
-  ['3', '1', 1],
-  ['2', '1', 1],
-  ['1', '4', 1.5],
-  ['3', '4', 1.7],
-  ['4', '5', 2.6],
-  ['2', '5', 0.9],
-]);
+import { chainWithProbe, fourCycleWithChords, triangleWithChord, triangleWithListeners } from './networks';
 
 function usedRunIsContiguousAndAboveFloor(side: SignResponse): void {
   const used = side.points.map((p) => p.used);
@@ -59,18 +48,12 @@ describe('pitfall 1: baseline of a rounding-split cluster', () => {
 });
 
 describe('pitfall 2: noise floor', () => {
-  const tri = net([
-    ['1', '2', 1],
-    ['2', '3', 1],
-    ['3', '1', 1],
-    ['2', '1', 1],
-  ]);
-  const r = auditNetwork(tri);
+  const r = auditNetwork(triangleWithChord);
 
   it('an exactly flat response next to a Jordan block is classed flat although Δ is not zero', () => {
     // +ε on 1→2 keeps λ = 2 a double root exactly (closed form by hand), so every non-zero Δ is
     // rounding of the defective eigenvalue.
-    const e = r.edges[edgeIndex(tri, '1', '2')];
+    const e = r.edges[edgeIndex(triangleWithChord, '1', '2')];
     const side = e.plus as SignResponse;
     expect(side.class).toBe('flat');
     expect(side.points.some((p) => p.delta !== 0)).toBe(true);
@@ -93,15 +76,8 @@ describe('pitfall 2: noise floor', () => {
     // 4-cycle with chords (Jordan block of size 3 at 2): −ε on 2→3 is linear (c = −1, issue 3).
     // This is the full solve's pitfall (method 'exact'); the fast path computes these points from
     // a 3×3 reduced problem and is far less noisy there (fast.test.ts checks its floors).
-    const cyc = net([
-      ['1', '2', 1],
-      ['2', '3', 1],
-      ['3', '4', 1],
-      ['4', '1', 1],
-      ['1', '3', 1],
-      ['1', '4', 1],
-    ]);
-    const side = auditEdge(cyc, analyseBaseline(cyc, { method: 'exact' }), 1).minus as SignResponse;
+    const exactBaseline = analyseBaseline(fourCycleWithChords, { method: 'exact' });
+    const side = auditEdge(fourCycleWithChords, exactBaseline, edgeIndex(fourCycleWithChords, '2', '3')).minus as SignResponse;
     expect(side.class).toBe('linear');
     expect(side.points[0].used).toBe(0);
     expect(side.points[0].floor).toBeGreaterThan(Math.abs(side.points[0].eps));
@@ -110,7 +86,7 @@ describe('pitfall 2: noise floor', () => {
 
   it('fewer than three points above the floor: low signal, no class', () => {
     const shortLadder = { ladder: { from: 2, to: 2.5, step: 0.5 } };
-    const e = auditNetwork(tri, shortLadder).edges[edgeIndex(tri, '2', '1')];
+    const e = auditNetwork(triangleWithChord, shortLadder).edges[edgeIndex(triangleWithChord, '2', '1')];
     expect(e.plus?.points).toHaveLength(2);
     expect(e.plus?.class).toBe('other');
     expect(e.plus?.flags).toContain('low-signal');
@@ -159,11 +135,7 @@ describe('pitfall 3: identity change', () => {
 });
 
 describe('pitfall 4: sign dependence', () => {
-  const chain = net([
-    ['a', 'b', 1],
-    ['b', 'c', 1],
-    ['c', 'b', 0],
-  ]);
+  const chain = chainWithProbe();
 
   it('a square-root split is real on one sign and complex on the other', () => {
     // μ² − (2+ε)μ + 1 = 0 (closed form by hand): discriminant ε + ε²/4 > 0 for ε > 0, < 0 for −4 < ε < 0.
@@ -195,13 +167,7 @@ describe('pitfall 4: sign dependence', () => {
   });
 
   it('an edge can be exactly flat on one sign and linear on the other', () => {
-    const tri = net([
-      ['1', '2', 1],
-      ['2', '3', 1],
-      ['3', '1', 1],
-      ['2', '1', 1],
-    ]);
-    const e = auditNetwork(tri).edges[edgeIndex(tri, '3', '1')];
+    const e = auditNetwork(triangleWithChord).edges[edgeIndex(triangleWithChord, '3', '1')];
     expect(e.plus?.class).toBe('flat');
     expect(e.minus?.class).toBe('linear');
     expect(e.plus?.flags).toContain('sign-change');
@@ -222,11 +188,7 @@ describe('pitfall 5: near-degenerate cluster, crossover', () => {
   // Re λ2 − 1 = (δ+ε)/2 − √((δ+ε)²/4 + ε): ≈ −ε/δ for ε ≪ δ² and ≈ −√ε for ε ≫ δ². The two laws meet
   // at ε = δ²; the exact derivative at 0 is −1/δ.
   const delta = 0.01;
-  const chain = net([
-    ['a', 'b', 1 + delta],
-    ['b', 'c', 1],
-    ['c', 'b', 0],
-  ]);
+  const chain = chainWithProbe(1 + delta);
   const e = auditNetwork(chain).edges[edgeIndex(chain, 'c', 'b')];
   const side = e.plus as SignResponse;
 
