@@ -26,23 +26,34 @@ const columns = [
   col.accessor((r) => r.disposition?.kind ?? '', { id: 'disposition', header: 'Disposition', cell: (c) => <DispositionTag row={c.row.original} small /> }),
 ];
 
-/** Least widths, to fit beside the edge detail in a 1440 px window; any room beyond is shared out, names taking twice their share. */
-const layout: Record<EdgeSortKey, { width: number; right?: boolean; grow?: number; name: string }> = {
+/**
+ * Least widths, to fit beside the edge detail in a 1440 px window; any room beyond is shared out, names taking twice their share.
+ * `lead` is extra room before a left-aligned column that follows a right-aligned one, where the two would otherwise touch.
+ */
+const layout: Record<EdgeSortKey, { width: number; right?: boolean; grow?: number; lead?: number; name: string }> = {
   edge: { width: 28, right: true, name: 'edge number' },
   source: { width: 70, grow: 2, name: 'source' },
   target: { width: 70, grow: 2, name: 'target' },
   weight: { width: 50, right: true, name: 'weight' },
-  class: { width: 86, name: 'class' },
+  class: { width: 86, lead: 6, name: 'class' },
   plusExponent: { width: 38, right: true, name: 'exponent at +ε' },
   minusExponent: { width: 38, right: true, name: 'exponent at −ε' },
   tolerance: { width: 72, right: true, name: 'tolerance |ε|' },
   toleranceRel: { width: 62, right: true, name: 'tolerance as % of weight' },
-  sensitivity: { width: 78, right: true, name: 'sensitivity ∂Re λ2/∂w' },
-  disposition: { width: 80, name: 'disposition' },
+  sensitivity: { width: 66, right: true, name: 'sensitivity ∂Re λ2/∂w' },
+  disposition: { width: 80, lead: 8, name: 'disposition' },
 };
 const GAP = 3;
-export const tableWidth = Object.values(layout).reduce((s, l) => s + l.width + GAP, 12);
-const cellStyle = (l: (typeof layout)[EdgeSortKey]) => ({ flexBasis: l.width, flexGrow: l.width * (l.grow ?? 1), flexShrink: 0, minWidth: l.width, marginLeft: GAP / 2, marginRight: l === layout.edge ? GAP / 2 + 4 : GAP / 2 });
+const AFTER_NUMBER = 4;
+export const tableWidth = Object.values(layout).reduce((s, l) => s + l.width + (l.lead ?? 0) + GAP, 12 + AFTER_NUMBER);
+const cellStyle = (l: (typeof layout)[EdgeSortKey]) => ({
+  flexBasis: l.width,
+  flexGrow: l.width * (l.grow ?? 1),
+  flexShrink: 0,
+  minWidth: l.width,
+  marginLeft: GAP / 2 + (l.lead ?? 0),
+  marginRight: l === layout.edge ? GAP / 2 + AFTER_NUMBER : GAP / 2,
+});
 
 /** The wide-screen audit table. Sorting, filtering and paging happen on the server. */
 export function EdgeTable({

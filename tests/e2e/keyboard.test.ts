@@ -29,13 +29,21 @@ async function tabTo(page: Page, match: RegExp, limit = 80): Promise<string> {
 describe('audit table and disposition form with the keyboard alone', () => {
   const world = useBrowserWorld();
 
-  test('an auditor records a disposition without touching the mouse', async () => {
-    const analystPage = await (await world.browser.newContext({ viewport: viewports.wide })).newPage();
+  /** An audit of the demo relay, started by the analyst (through the API: the run itself is not under test here). */
+  async function startedAudit(): Promise<number> {
+    const context = await world.browser.newContext({ viewport: viewports.wide });
+    const analystPage = await context.newPage();
     await signInAs(analystPage, world.server.url, user('analyst').email, user('analyst').password);
     const auditId: number = await analystPage.evaluate(async () => {
       const r = await fetch('/api/v1/audits', { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ networkId: 1, version: 1 }) });
       return (await r.json()).id;
     });
+    await context.close();
+    return auditId;
+  }
+
+  test('an auditor records a disposition without touching the mouse', async () => {
+    const auditId = await startedAudit();
 
     const page = await (await world.browser.newContext({ viewport: viewports.wide })).newPage();
     const errors = watchErrors(page);
@@ -58,6 +66,54 @@ describe('audit table and disposition form with the keyboard alone', () => {
     const saved = await page.evaluate(async (id) => (await (await fetch(`/api/v1/audits/${id}/edges/0`)).json()).disposition, auditId);
     expect(saved).toMatchObject({ kind: 'mitigate', note: 'recalibrate the crest-to-ledge gain every quarter', by: 'Demo Auditor' });
     await screenshot(page, 'keyboard-disposition-wide');
+    expect(errors).toEqual([]);
+  });
+
+  /**
+   * Between 1024 and 1340 px the shell's own pane takes the right edge, so the
+   * selected edge opens as a sheet over it, mounted last in the page. Focus
+   * must go into the sheet when it opens, and back to the row on Escape.
+   */
+  test('at 1280×800 the edge sheet takes the focus, keeps a short Tab order, and Escape returns to the row', async () => {
+    const auditId = await startedAudit();
+    const page = await (await world.browser.newContext({ viewport: { width: 1280, height: 800 } })).newPage();
+    const errors = watchErrors(page);
+    await signInAs(page, world.server.url, user('auditor').email, user('auditor').password);
+    await page.goto(`${world.server.url}/audits/${auditId}?flagged=yes&sort=tolerance`, { waitUntil: 'networkidle' });
+    await page.getByText('in review', { exact: true }).first().waitFor({ timeout: 90_000 });
+    const firstRow = page.getByRole('row', { name: /^Edge \d+:/ }).first();
+    await firstRow.waitFor();
+    const rowName = (await firstRow.getAttribute('aria-label'))!;
+
+    await tabTo(page, new RegExp(`^${rowName.split(':')[0]}:`));
+    await page.keyboard.press('Enter');
+    const sheet = page.getByRole('complementary', { name: 'Selected edge' });
+    await sheet.getByLabel(/^Response plot:/).waitFor();
+    const focusInSheet = () => page.evaluate(() => !!document.activeElement?.closest('[aria-label="Selected edge"]'));
+    await expect(focusInSheet()).resolves.toBe(true);
+
+    // From the sheet's top, the disposition choices are a few presses away, not behind the whole page.
+    let presses = 0;
+    for (; presses < 20; presses++) {
+      await page.keyboard.press('Tab');
+      const name = await page.evaluate(() => document.activeElement?.getAttribute('aria-label') ?? document.activeElement?.textContent ?? '');
+      if (/monitor/.test(name)) break;
+    }
+    expect(presses).toBeLessThan(20);
+    await expect(focusInSheet()).resolves.toBe(true);
+    await page.keyboard.press('Space');
+    await tabTo(page, /^Note/, 6);
+    await page.keyboard.type('watch the drift of this link at every service visit');
+    await tabTo(page, /Record disposition/, 4);
+    await page.keyboard.press('Enter');
+    await sheet.getByText('● Saved').waitFor();
+    await screenshot(page, 'keyboard-sheet-1280');
+
+    await page.keyboard.press('Escape');
+    await sheet.waitFor({ state: 'detached' });
+    const focused = await page.evaluate(() => document.activeElement?.getAttribute('aria-label') ?? '');
+    expect(focused.split(',')[0]).toBe(rowName.split(',')[0]);
+    await page.getByRole('row', { name: new RegExp(`^${rowName.split(':')[0]}:`) }).getByText(/monitor/).waitFor();
     expect(errors).toEqual([]);
   });
 });
