@@ -31,7 +31,7 @@ export function AuditTrail({ auditId }: { auditId: number }) {
             </View>
             {e.oldValue !== null || e.newValue !== null ? (
               <Text className="font-mono text-xs text-ink-soft">
-                {clip(e.oldValue)} → {clip(e.newValue)}
+                {e.oldValue === null ? clip(e.newValue) : `${clip(e.oldValue)} → ${clip(e.newValue)}`}
               </Text>
             ) : null}
             {e.reason ? <Text className="text-sm leading-5 text-ink-soft">“{e.reason}”</Text> : null}

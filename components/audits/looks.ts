@@ -82,11 +82,16 @@ export function describeValue(raw: string | null): string {
   } catch {
     return raw;
   }
-  if (v === null) return '—';
+  return plainWords(v, true);
+}
+
+/** A stored value in words: lists joined by commas, nested records as "key value" pairs, no JSON punctuation. */
+function plainWords(v: unknown, top = false): string {
+  if (v === null || v === undefined) return '—';
+  if (Array.isArray(v)) return v.map((x) => plainWords(x)).join(', ');
   if (typeof v !== 'object') return String(v);
-  return Object.entries(v as Record<string, unknown>)
-    .map(([k, x]) => `${k} ${typeof x === 'object' && x !== null ? JSON.stringify(x) : String(x)}`)
-    .join(' · ');
+  const parts = Object.entries(v as Record<string, unknown>).map(([k, x]) => `${k} ${plainWords(x)}`);
+  return parts.join(top ? ' · ' : ', ');
 }
 
 /** The sort keys as the phone's sort choice names them. */
