@@ -29,20 +29,20 @@ export async function startServer(config: Config, options: { seed?: boolean } = 
   const db = openDatabase(config.databaseFile);
   await migrateToLatest(db);
   if (options.seed) await db.seed.run();
-  const jobs = createWorkerPool();
+  // Import summaries get a thread of their own: one dense eigen-solve of a 2,000-node network takes
+  // minutes, and on a shared thread every audit chunk would queue behind it.
+  const summaryThreads = createWorkerPool(1);
   const log = (msg: string, err?: unknown) => console.error(`[hairline] ${msg}`, err instanceof Error ? err.message : (err ?? ''));
-  // Audit sweeps: on the same threads by default, or as chunks on a Redis queue for `npm run worker` processes.
-  let sweeps: JobPool = jobs;
-  if (config.jobs.mode === 'bullmq') {
-    try {
-      sweeps = await createBullmqPool(config.jobs, log);
-    } catch (err) {
-      await jobs.close();
-      await db.destroy();
-      throw err;
-    }
+  // Audit sweeps: on worker threads by default, or as chunks on a Redis queue for `npm run worker` processes.
+  let sweeps: JobPool;
+  try {
+    sweeps = config.jobs.mode === 'bullmq' ? await createBullmqPool(config.jobs, log) : createWorkerPool();
+  } catch (err) {
+    await summaryThreads.close();
+    await db.destroy();
+    throw err;
   }
-  const summaries = new SummaryQueue(db, jobs, log);
+  const summaries = new SummaryQueue(db, summaryThreads, log);
   // Versions stored before a stop still owe their summary.
   await summaries.resumePending();
   // Mail (issue 4): in fake mode a loopback SMTP server stores every message in the outbox.
@@ -68,8 +68,8 @@ export async function startServer(config: Config, options: { seed?: boolean } = 
       server.closeAllConnections?.();
       runner.stop();
       summaries.stop();
-      if (sweeps !== jobs) await sweeps.close();
-      await jobs.close();
+      await sweeps.close();
+      await summaryThreads.close();
       await runner.idle();
       await summaries.idle();
       await fakeSmtp?.close();
