@@ -1,21 +1,10 @@
-import { Pressable, TextInput, View, type TextInputProps } from 'react-native';
+import { Pressable, View, type TextInputProps } from 'react-native';
+import { Field } from '@/components/ui/field';
 import { Text } from '@/components/ui/text';
 
-/** A labelled input with the server's per-field message under it. */
-export function LabeledInput({ label, error, ...input }: TextInputProps & { label: string; error?: string }) {
-  return (
-    <View className="gap-1">
-      <Text className="font-medium text-sm text-ink">{label}</Text>
-      <TextInput
-        accessibilityLabel={label}
-        placeholderTextColor="#6B7785"
-        autoCapitalize="none"
-        className={`min-h-[44px] rounded-md border bg-paper-card px-3 py-2 font-sans text-[15px] text-ink ${error ? 'border-rust' : 'border-rule-strong'}`}
-        {...input}
-      />
-      {error ? <Text className="text-sm text-rust">× {error}</Text> : null}
-    </View>
-  );
+/** A labelled input with the server's per-field message under it; e-mail addresses and passwords are never capitalised. */
+export function LabeledInput(props: TextInputProps & { label: string; error?: string }) {
+  return <Field autoCapitalize="none" {...props} />;
 }
 
 /** A button; `tone` picks ink (main action), outline, or rust (a step that ends something). */

@@ -1,5 +1,7 @@
+import { Link } from 'expo-router';
 import type { ReactNode } from 'react';
 import { ScrollView, View } from 'react-native';
+import { Notice } from '@/components/account/form-bits';
 import { BrandMark } from '@/components/shell/brand-mark';
 import { Text } from '@/components/ui/text';
 
@@ -17,6 +19,18 @@ export function AuthFrame({ title, lead, children }: { title: string; lead?: str
         <View className="mt-6 gap-4">{children}</View>
       </View>
     </ScrollView>
+  );
+}
+
+/** The end of a signed-out task (a password set or changed): what happened, and the way to sign in. */
+export function DoneThenSignIn({ title, children }: { title: string; children: ReactNode }) {
+  return (
+    <AuthFrame title={title}>
+      <Notice kind="done">{children}</Notice>
+      <Link href="/sign-in" className="font-medium text-rust underline">
+        Go to sign-in
+      </Link>
+    </AuthFrame>
   );
 }
 

@@ -1,9 +1,8 @@
-import { Link } from 'expo-router';
 import { useEffect, useState } from 'react';
 import { ActionButton, LabeledInput, Notice } from '@/components/account/form-bits';
 import { useAcceptInvitation } from '@/lib/api/account';
 import { ApiError } from '@/lib/api/client';
-import { AuthFrame, tokenFromHash } from './auth-frame';
+import { AuthFrame, DoneThenSignIn, tokenFromHash } from './auth-frame';
 
 /** Opened from the invitation e-mail: choose the first password. */
 export function InvitationScreen() {
@@ -18,16 +17,7 @@ export function InvitationScreen() {
     setMismatch(password !== repeat);
     if (password === repeat) accept.mutate({ token, password });
   };
-  if (accept.data) {
-    return (
-      <AuthFrame title="Password set">
-        <Notice kind="done">Your password for {accept.data.email} is set. Sign in to start.</Notice>
-        <Link href="/sign-in" className="font-medium text-rust underline">
-          Go to sign-in
-        </Link>
-      </AuthFrame>
-    );
-  }
+  if (accept.data) return <DoneThenSignIn title="Password set">Your password for {accept.data.email} is set. Sign in to start.</DoneThenSignIn>;
   return (
     <AuthFrame title="Accept your invitation" lead="Choose a password of at least 12 characters. The link works once.">
       <LabeledInput label="New password" value={password} onChangeText={setPassword} secureTextEntry autoComplete="new-password" error={err?.fields?.password} />

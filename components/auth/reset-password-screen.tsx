@@ -3,7 +3,7 @@ import { useEffect, useState } from 'react';
 import { ActionButton, LabeledInput, Notice } from '@/components/account/form-bits';
 import { useCompleteReset, useRequestReset } from '@/lib/api/account';
 import { ApiError } from '@/lib/api/client';
-import { AuthFrame, tokenFromHash } from './auth-frame';
+import { AuthFrame, DoneThenSignIn, tokenFromHash } from './auth-frame';
 
 /** Without a token: ask for a reset link. With one (from the e-mail): choose the new password. */
 export function ResetPasswordScreen() {
@@ -35,14 +35,7 @@ function CompleteReset({ token }: { token: string }) {
   const [password, setPassword] = useState('');
   const err = complete.error instanceof ApiError ? complete.error : null;
   if (complete.data) {
-    return (
-      <AuthFrame title="Password changed">
-        <Notice kind="done">The password for {complete.data.email} is changed, and its other sessions have ended.</Notice>
-        <Link href="/sign-in" className="font-medium text-rust underline">
-          Go to sign-in
-        </Link>
-      </AuthFrame>
-    );
+    return <DoneThenSignIn title="Password changed">The password for {complete.data.email} is changed, and its other sessions have ended.</DoneThenSignIn>;
   }
   return (
     <AuthFrame title="Choose a new password" lead="At least 12 characters.">
