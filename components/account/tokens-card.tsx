@@ -16,7 +16,8 @@ export function TokensCard() {
   return (
     <Card title="API tokens">
       <Text className="mb-3 text-sm leading-5 text-ink-soft">
-        A token lets a script import networks and start audits as you. Send it as `Authorization: Bearer …`.
+        A token lets a script import networks and start audits as you. Send it in the header{' '}
+        <Text className="font-mono text-xs text-ink">Authorization: Bearer …</Text>
       </Text>
       <View className="gap-3">
         <LabeledInput label="Token name" value={name} onChangeText={setName} placeholder="e.g. design pipeline" error={(create.error as { fields?: Record<string, string> } | null)?.fields?.name} />

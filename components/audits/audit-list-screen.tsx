@@ -1,5 +1,6 @@
 import { useLocalSearchParams, useRouter } from 'expo-router';
 import { View } from 'react-native';
+import { useMe } from '@/lib/api/account';
 import { useAudits } from '@/lib/api/audits';
 import { auditStates, type AuditState } from '@/lib/schemas/audit';
 import { Button } from '../ui/button';
@@ -21,6 +22,7 @@ export function AuditListScreen() {
   const router = useRouter();
   const states = statesFromParam(params.state);
   const list = useAudits(states);
+  const canStart = useMe().data?.roles.includes('analyst') ?? false;
   const toggle = (s: AuditState) => {
     const next = toggleIn(states, s, auditStates);
     router.setParams({ state: next.length ? next.join(',') : undefined });
@@ -35,11 +37,18 @@ export function AuditListScreen() {
       {list.isPending ? <Loading what="audits" /> : null}
       {list.isError ? <ErrorState message={list.error.message} onRetry={() => list.refetch()} /> : null}
       {list.data && list.data.audits.length === 0 ? (
-        <EmptyState
-          title={states.length ? 'No audits in these states' : 'No audits yet'}
-          body={states.length ? 'Clear the state filter to see every audit.' : 'Open a network and choose “Start an audit” to sweep its edge weights.'}
-          action={states.length ? undefined : <Button label="Go to networks" tone="secondary" onPress={() => router.push('/networks')} />}
-        />
+        states.length ? (
+          <EmptyState title="No audits in these states" body="Clear the state filter to see every audit." />
+        ) : canStart ? (
+          <EmptyState
+            title="No audits yet"
+            body="Open a network and choose “Start an audit” to sweep its edge weights."
+            action={<Button label="Go to networks" tone="secondary" onPress={() => router.push('/networks')} />}
+          />
+        ) : (
+          // Only analysts start audits: the others are told who will, not sent to a button they lack.
+          <EmptyState title="No audits yet" body="Audits appear here once an analyst starts one; this list then follows each run to sign-off." />
+        )
       ) : null}
       <View className="gap-3">
         {list.data?.audits.map((a) => <AuditCard key={a.id} audit={a} />)}

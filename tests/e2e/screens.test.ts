@@ -40,7 +40,8 @@ const screensFor: Record<string, Screen[]> = {
   ],
   approver: [
     { name: 'overview', path: '/', ready: heading('Overview') },
-    { name: 'audits', path: '/audits', ready: heading('Audits') },
+    // With no audit yet, an approver is told who starts one, not offered a step they cannot take.
+    { name: 'audits', path: '/audits', ready: (p) => p.getByText(/once an analyst starts one/).waitFor() },
     { name: 'account', path: '/account', ready: heading('Account') },
   ],
 };
