@@ -5,8 +5,9 @@ import { View, type ViewStyle } from 'react-native';
 const { createPortal } = require('react-dom') as { createPortal: (children: ReactNode, container: Element) => ReactPortal };
 
 /**
- * A sheet along the right edge of a wide screen, over the shell's own pane,
- * so a selection's detail sits beside the content instead of under it. It is
+ * A sheet along the right edge of a wide screen, for a selection's detail
+ * when the content is too narrow to hold it alongside; the content moves
+ * aside while it is open (global.css), so nothing is hidden under it. It is
  * mounted on <body> because the page scrolls inside a transformed element,
  * where `position: fixed` would not hold.
  *
@@ -26,9 +27,12 @@ export function SideSheet({ label, onClose, children }: { label: string; onClose
   }, [onClose]);
   useEffect(() => {
     if (!host) return;
+    // global.css moves the page content aside while this attribute is set, so nothing hides under the sheet.
+    document.body.setAttribute('data-side-sheet', 'open');
     const opener = document.activeElement instanceof HTMLElement ? document.activeElement : null;
     (sheet.current as unknown as HTMLElement | null)?.focus();
     return () => {
+      document.body.removeAttribute('data-side-sheet');
       // Back to the opener if it is still on the page (a disposed row may have left a filtered table).
       if (opener?.isConnected) opener.focus();
     };

@@ -22,6 +22,34 @@ async function tabTo(page: Page, match: RegExp, limit = 80): Promise<string> {
 }
 
 /**
+ * The content's controls whose visible part is covered by the edge sheet:
+ * the middle of what shows of each (inside its scrolling ancestors and the
+ * window) is hit-tested, and a hit inside the sheet means the sheet hides it.
+ */
+function controlsUnderSheet(page: Page): Promise<string[]> {
+  return page.evaluate(() => {
+    const sheet = document.querySelector('[aria-label="Selected edge"]');
+    const controls = document.querySelectorAll('[role="main"] :is(button, a, input, textarea, [role="button"], [role="link"], [role="checkbox"], [role="radio"], [role="row"])');
+    const covered: string[] = [];
+    for (const el of Array.from(controls)) {
+      if (sheet?.contains(el)) continue;
+      let { left, top, right, bottom } = el.getBoundingClientRect();
+      for (let a = el.parentElement; a; a = a.parentElement) {
+        const style = getComputedStyle(a);
+        if (style.overflowX === 'visible' && style.overflowY === 'visible') continue;
+        const r = a.getBoundingClientRect();
+        left = Math.max(left, r.left); top = Math.max(top, r.top); right = Math.min(right, r.right); bottom = Math.min(bottom, r.bottom);
+      }
+      left = Math.max(left, 0); top = Math.max(top, 0); right = Math.min(right, window.innerWidth); bottom = Math.min(bottom, window.innerHeight);
+      if (right - left < 2 || bottom - top < 2) continue;
+      const hit = document.elementFromPoint((left + right) / 2, (top + bottom) / 2);
+      if (hit && sheet?.contains(hit)) covered.push(el.getAttribute('aria-label') ?? el.textContent?.slice(0, 40) ?? el.tagName);
+    }
+    return covered;
+  });
+}
+
+/**
  * The wide layout with the keyboard alone: an auditor reaches the table,
  * opens a flagged edge, chooses a disposition, writes the note and records
  * it — no mouse.
@@ -91,6 +119,11 @@ describe('audit table and disposition form with the keyboard alone', () => {
     await sheet.getByLabel(/^Response plot:/).waitFor();
     const focusInSheet = () => page.evaluate(() => !!document.activeElement?.closest('[aria-label="Selected edge"]'));
     await expect(focusInSheet()).resolves.toBe(true);
+    // The page makes room for the sheet: no control of the content lies under it, wherever the page is scrolled.
+    for (const y of [0, 600, 1200]) {
+      await page.evaluate((top) => document.querySelector('[role="main"] [style*="overflow"], main')?.scrollTo?.(0, top), y);
+      await expect(controlsUnderSheet(page)).resolves.toEqual([]);
+    }
 
     // From the sheet's top, the disposition choices are a few presses away, not behind the whole page.
     let presses = 0;
