@@ -147,6 +147,13 @@ describe('audit table and disposition form with the keyboard alone', () => {
     const focused = await page.evaluate(() => document.activeElement?.getAttribute('aria-label') ?? '');
     expect(focused.split(',')[0]).toBe(rowName.split(',')[0]);
     await page.getByRole('row', { name: new RegExp(`^${rowName.split(':')[0]}:`) }).getByText(/monitor/).waitFor();
+
+    // At the narrowest wide layout the sheet is slimmer, and the content still moves aside for it.
+    await page.setViewportSize({ width: 1024, height: 768 });
+    await page.getByRole('row', { name: /^Edge \d+:/ }).first().click();
+    await sheet.getByLabel(/^Response plot:/).waitFor();
+    await expect(controlsUnderSheet(page)).resolves.toEqual([]);
+    await screenshot(page, 'keyboard-sheet-1024');
     expect(errors).toEqual([]);
   });
 });
