@@ -216,7 +216,8 @@ export class FastEdge {
       const idx = ctx.data.items[0].spectrumIndex.indexOf(b.lambda2Index);
       const own = idx >= 0 ? ctx.data.items[0].values[2 * idx] : NaN;
       // Only a rounding-sized difference is an offset; anything larger would be a different eigenvalue.
-      if (Number.isFinite(own) && Math.abs(own - b.baselineRe) <= 1e-9 * Math.max(b.maxDegree, 1)) shift = own - b.baselineRe;
+      // Relative to the matrix scale alone: a floor of 1 made the test absolute for weights below 1.
+      if (Number.isFinite(own) && Math.abs(own - b.baselineRe) <= 1e-9 * Math.max(b.maxDegree, Number.MIN_VALUE)) shift = own - b.baselineRe;
     }
     ctx.referenceShift = shift;
     return shift;
@@ -345,14 +346,19 @@ export class FastEdge {
     const scale = Math.max(this.baseline.normF, Number.MIN_VALUE);
     const rp0 = reducedProblem(ctx, this.coupling, [0]);
     const target = Math.max(core.rawAtZero, core.clusterRadius, 4 * U * scale);
-    let lo = Math.log(1e-30 * scale);
-    let hi = Math.log(1e-2 * scale);
+    // Bisect on log(η/scale), not log η: the bisection then visits the same relative sizes whatever
+    // the weight unit, so scaling every weight by a power of two scales η (and every floor) exactly.
+    // On log η the endpoints log(1e-30·scale) shifted by a rounded log c, and where the model's own
+    // rounding already meets the target (a defective core) η landed on a slightly different size
+    // per scaling — enough to move the floors of flat sides by a factor of 3 or more.
+    let lo = Math.log(1e-30);
+    let hi = Math.log(1e-2);
     for (let i = 0; i < 50; i++) {
       const mid = 0.5 * (lo + hi);
-      if (modelSpread(rp0, 0, 0, Math.exp(mid)) < target) lo = mid;
+      if (modelSpread(rp0, 0, 0, scale * Math.exp(mid)) < target) lo = mid;
       else hi = mid;
     }
-    ctx.floorEta = Math.exp(hi);
+    ctx.floorEta = scale * Math.exp(hi);
     return ctx.floorEta;
   }
 }
