@@ -50,7 +50,9 @@ export function createApp({ db, config, log = defaultLog, summaries, mailer, now
   mountIdentity(api, accounts);
   mountAccountRoutes(api, accounts);
   // ── end accounts
-  api.use(healthRouter(db));
+  const notify = mailNotifier(db, accounts.mailer, log);
+  const sweeps = runner ?? new AuditRunner(db, createInlinePool(), notify, log, now);
+  api.use(healthRouter(db, () => sweeps.jobsStatus()));
   api.use(
     networksRouter({
       db,
@@ -58,8 +60,7 @@ export function createApp({ db, config, log = defaultLog, summaries, mailer, now
       limits: config.importLimits,
     }),
   );
-  const notify = mailNotifier(db, accounts.mailer, log);
-  api.use(auditsRouter({ db, notify, now, runner: runner ?? new AuditRunner(db, createInlinePool(), notify, log, now) }));
+  api.use(auditsRouter({ db, notify, now, runner: sweeps }));
   api.use(apiNotFound);
   app.use('/api/v1', api);
   app.use('/api', apiNotFound);

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { jobsStatusSchema } from './health';
 import { conventionSchema } from './network';
 
 /**
@@ -111,6 +112,11 @@ export const auditDetailSchema = auditSummarySchema.extend({
   lastComment: z.object({ by: z.string(), at: z.string(), text: z.string(), action: z.string() }).nullable(),
   /** What the signed-in caller may do now (the server enforces it anyway). */
   allowed: z.array(z.enum(['cancel', 'dispose', 'submit', 'return', 'lock', 'reopen'])),
+  /**
+   * While queued or sweeping: who could compute the run, so a page can say why
+   * a queued run does not move. Null once the sweep is over.
+   */
+  jobs: jobsStatusSchema.nullable().optional(),
 });
 export type AuditDetail = z.infer<typeof auditDetailSchema>;
 

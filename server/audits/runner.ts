@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { toEdgeRowFields } from '../../lib/audit/edge-row';
+import type { JobsStatus } from '../../lib/schemas/health';
 import type { EdgeResult, SpectralBaseline, SpectralNetwork, SpectralOptions } from '../../lib/spectral';
 import { JobDiscardedError, type JobPool } from '../jobs/pool';
 import { recordEvent } from '../trail/service';
@@ -79,6 +80,11 @@ export class AuditRunner {
       void this.start(id);
     }
     return ids;
+  }
+
+  /** Who computes the sweeps: the health answer and a running audit's page report it. */
+  jobsStatus(): Promise<JobsStatus> {
+    return this.pool.status();
   }
 
   async idle(): Promise<void> {

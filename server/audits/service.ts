@@ -77,6 +77,8 @@ export async function auditDetail(deps: AuditDeps, user: RequestUser, id: number
     hashCheck,
     lastComment: last?.reason ? { by: last.display_name ?? '', at: last.at, text: last.reason, action: last.action.replace('audit.', '') } : null,
     allowed: allowedActions(a.state as AuditState, user, a.started_by),
+    // Only while the run waits on workers: a queued run with none connected says why it does not move.
+    jobs: a.state === 'queued' || a.state === 'sweeping' ? await deps.runner.jobsStatus() : null,
   };
 }
 

@@ -3,12 +3,20 @@ import type { SpectralNetwork, SpectralOptions } from '../../lib/spectral';
 import { JobDiscardedError, type JobPool, type JobTicket } from './pool';
 import type { JobsSettings } from './settings';
 import type { Task } from './tasks';
+import { withTimeout } from './timeout';
 import { INPUT_TTL_S, inputKey, jobIdFor, redactedUrl, redisOptions, serialiseInput, unpack, wireJobFor, type WireJob } from './bullmq-wire';
 
 /** Tasks one run keeps queued at once: enough to feed many workers, few enough to cancel quickly. */
 const WIDTH = 256;
 /** A safety net under the completion events: pending jobs are also looked up this often. */
 const RECHECK_MS = 5000;
+/**
+ * The worker count is asked of Redis (CLIENT LIST, which walks every
+ * connection) at most this often, however many pages poll a queued audit.
+ */
+const WORKER_COUNT_TTL_MS = 2000;
+/** A health check or an audit page waits no longer than this for the count; then it says "unknown". */
+const WORKER_COUNT_WAIT_MS = 1000;
 
 interface Waiter {
   resolve(value: unknown): void;
@@ -45,6 +53,7 @@ export async function createBullmqPool(
       removeOnFail: { age: 7 * 24 * 3600 },
     },
   });
+  let closed = false;
   let lastError = '';
   const onError = (err: Error) => {
     if (err.message !== lastError) log('job queue: Redis connection problem', err);
@@ -72,7 +81,32 @@ export async function createBullmqPool(
     throw unreachable(err);
   }
 
-  const workers = await queue.getWorkersCount().catch(() => -1);
+  /** The last count Redis gave (null: it did not), and the question still out, so only one is. */
+  let counted: { at: number; workers: number | null } | null = null;
+  let asking: Promise<number | null> | null = null;
+  const askWorkerCount = (): Promise<number | null> => {
+    asking ??= queue
+      .getWorkers()
+      // A Redis that refuses CLIENT LIST gets one placeholder entry from BullMQ, with no address: no count.
+      .then((list) => (list.some((c) => !c.addr) ? null : list.length), () => null)
+      .then((workers) => {
+        counted = { at: Date.now(), workers };
+        return workers;
+      })
+      .finally(() => (asking = null));
+    return asking;
+  };
+  const workerCount = async (): Promise<number | null> => {
+    if (closed) return null;
+    if (counted && Date.now() - counted.at < WORKER_COUNT_TTL_MS) return counted.workers;
+    return withTimeout(askWorkerCount(), WORKER_COUNT_WAIT_MS).catch(() => {
+      // Redis is slow or away: say so for a while rather than make every caller wait again.
+      counted = { at: Date.now(), workers: null };
+      return null;
+    });
+  };
+
+  const workers = await workerCount();
   if (workers === 0) log(`job queue ${settings.queue}: no worker is connected yet; audits wait until one is (npm run worker)`);
 
   const waiters = new Map<string, Waiter[]>();
@@ -82,7 +116,6 @@ export async function createBullmqPool(
   const hashes = new WeakMap<SpectralNetwork, Map<SpectralOptions, string>>();
   /** When this process last stored each run input in Redis, and the write (callers wait for it). */
   const stored = new Map<string, { at: number; write: Promise<void> }>();
-  let closed = false;
 
   const settle = (id: string, outcome: { value: string } | { error: Error }) => {
     const list = waiters.get(id);
@@ -167,6 +200,10 @@ export async function createBullmqPool(
     queue,
     width: WIDTH,
 
+    async status() {
+      return { mode: 'queue', workers: await workerCount() };
+    },
+
     async run<T>(task: Task, ticket?: JobTicket): Promise<T> {
       if (closed) throw new JobDiscardedError('the job queue is closed');
       const group = ticket?.group ?? 'adhoc';
@@ -228,14 +265,4 @@ export async function createBullmqPool(
 function span(edges: number[]): string {
   if (edges.length === 1) return String(edges[0]);
   return `${edges[0]}–${edges[edges.length - 1]}`;
-}
-
-function withTimeout<T>(p: Promise<T>, ms: number): Promise<T> {
-  let timer: NodeJS.Timeout;
-  return Promise.race([
-    p,
-    new Promise<T>((_, reject) => {
-      timer = setTimeout(() => reject(new Error(`no answer within ${ms / 1000} s`)), ms);
-    }),
-  ]).finally(() => clearTimeout(timer));
 }

@@ -6,6 +6,7 @@ import { inputKey, pack, redactedUrl, redisOptions, unpack, type RunInput, type 
 import { createWorkerPool, type JobPool } from './pool';
 import { loadJobsSettings, type JobsSettings } from './settings';
 import type { Task } from './tasks';
+import { withTimeout } from './timeout';
 
 /**
  * A queue worker for bullmq mode (`npm run worker`; run any number, on any
@@ -128,16 +129,6 @@ export async function startQueueWorker(opts: QueueWorkerOptions): Promise<QueueW
       await (pool as JobPool | null)?.close();
     },
   };
-}
-
-function withTimeout<T>(p: Promise<T>, ms: number): Promise<T> {
-  let timer: NodeJS.Timeout;
-  return Promise.race([
-    p,
-    new Promise<T>((_, reject) => {
-      timer = setTimeout(() => reject(new Error(`no answer within ${ms / 1000} s`)), ms);
-    }),
-  ]).finally(() => clearTimeout(timer));
 }
 
 async function main(): Promise<void> {

@@ -1,5 +1,6 @@
 import path from 'node:path';
 import Piscina from 'piscina';
+import type { JobsStatus } from '../../lib/schemas/health';
 import { runTask, type Task } from './tasks';
 
 /** Names the run a task belongs to (e.g. `audit-7`), so its pending tasks can be dropped together. */
@@ -19,6 +20,11 @@ export interface JobPool {
   discard(group: string): Promise<void>;
   /** How many tasks one run is worth keeping in flight here. */
   readonly width: number;
+  /**
+   * Who computes the tasks: for the health answer and a running audit's page.
+   * Never rejects: a count that cannot be had is reported as null.
+   */
+  status(): Promise<JobsStatus>;
   close(): Promise<void>;
 }
 
@@ -41,6 +47,7 @@ export function createWorkerPool(threads = Math.max(1, require('node:os').availa
     // A chunk already handed to a thread finishes; the run stops asking for more.
     discard: async () => {},
     width: threads,
+    status: async () => ({ mode: 'threads', workers: threads }),
     close: () => pool.destroy(),
   };
 }
@@ -55,6 +62,7 @@ export function createInlinePool(): JobPool {
     },
     discard: async () => {},
     width: 1,
+    status: async () => ({ mode: 'threads', workers: 1 }),
     close: async () => {},
   };
 }

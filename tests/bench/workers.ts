@@ -50,6 +50,7 @@ async function main(): Promise<void> {
     },
     run: (task, ticket) => current.run(task, ticket),
     discard: (group) => current.discard(group),
+    status: () => current.status(),
     close: async () => {},
   };
   const world = await queueWorld(switching);

@@ -3,6 +3,7 @@ import { mkdtempSync, writeFileSync, mkdirSync, readFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import request from 'supertest';
+import { healthSchema } from '../../lib/schemas/health';
 import { createApp } from '../../server/app';
 import { loadConfig } from '../../server/config';
 import { freshDatabase } from './support/test-db';
@@ -34,10 +35,12 @@ describe('health and routing', () => {
   });
   afterAll(() => db.destroy());
 
-  test('GET /api/v1/health answers 200 with the package version and a live database', async () => {
+  test('GET /api/v1/health answers 200 with the package version, a live database and who computes sweeps', async () => {
     const res = await request(app).get('/api/v1/health');
     expect(res.status).toBe(200);
-    expect(res.body).toEqual({ status: 'ok', version: pkg.version, database: { ok: true } });
+    // The app without a runner sweeps on the calling thread: one "thread", never a queue.
+    expect(res.body).toEqual({ status: 'ok', version: pkg.version, database: { ok: true }, jobs: { mode: 'threads', workers: 1 } });
+    expect(healthSchema.parse(res.body)).toEqual(res.body);
   });
 
   test('an unknown API route gets a JSON 404 in the error envelope', async () => {

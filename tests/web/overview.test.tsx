@@ -15,7 +15,7 @@ function mockFetch(status: number, body: unknown) {
 
 describe('server status line', () => {
   test('says the server and database answer, with the version from the API', async () => {
-    mockFetch(200, { status: 'ok', version: '9.8.7', database: { ok: true } });
+    mockFetch(200, { status: 'ok', version: '9.8.7', database: { ok: true }, jobs: { mode: 'threads', workers: 3 } });
     renderWithQuery(<ServerStatus />);
     expect(await screen.findByText(/Server and database answer · version 9\.8\.7/)).toBeTruthy();
   });

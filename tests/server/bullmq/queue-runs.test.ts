@@ -4,11 +4,10 @@ import { AuditRunner } from '../../../server/audits/runner';
 import { silentNotifier } from '../../../server/audits/notify';
 import { createBullmqPool, type BullmqPool } from '../../../server/jobs/bullmq-pool';
 import { startQueueWorker, type QueueWorker } from '../../../server/jobs/bullmq-worker';
-import { createWorkerPool } from '../../../server/jobs/pool';
 import type { Task } from '../../../server/jobs/tasks';
 import { toEdgeRowFields } from '../../../lib/audit/edge-row';
 import { waitForSweep } from '../support/audits';
-import { queueWorld, ringCsv, startRedis, storedEdges, testJobSettings, until, type LocalRedis } from './support';
+import { inProcessQueueSuite, queueWorld, ringCsv, storedEdges, testJobSettings, until } from './support';
 
 /**
  * Failure handling in bullmq mode, with a queue worker inside the test so
@@ -18,29 +17,12 @@ import { queueWorld, ringCsv, startRedis, storedEdges, testJobSettings, until, t
  * 31 nodes and two edges each: 62 edges in 16 chunks of four.
  */
 describe('bullmq mode: failures, cancelling and restarts', () => {
-  let redis: LocalRedis;
-  const threads = createWorkerPool(1);
-  const cleanup: Array<() => Promise<unknown>> = [];
-  /** Held computations, let go before anything closes (a worker closing waits for its chunk). */
-  const releases: Array<() => void> = [];
-
-  beforeAll(async () => {
-    redis = await startRedis();
-  }, 30_000);
-
-  afterEach(async () => {
-    while (releases.length) releases.pop()!();
-    while (cleanup.length) await cleanup.pop()!().catch(() => {});
-  }, 30_000);
-
-  afterAll(async () => {
-    await threads.close();
-    await redis?.stop();
-  }, 30_000);
+  const suite = inProcessQueueSuite();
+  const { threads, cleanup, releases } = suite;
 
   /** The server side on a bullmq pool, with a fresh seeded database and a network imported. */
   async function server(queue: string, overrides: Parameters<typeof testJobSettings>[2] = {}, parallel?: number) {
-    const settings = testJobSettings(redis.url, queue, overrides);
+    const settings = testJobSettings(suite.redis.url, queue, overrides);
     const pool = await createBullmqPool(settings);
     const world = await queueWorld(pool, parallel);
     cleanup.push(() => world.db.destroy(), () => world.runner.idle(), () => pool.close(), async () => world.runner.stop());
@@ -124,7 +106,7 @@ describe('bullmq mode: failures, cancelling and restarts', () => {
   }, 90_000);
 
   test('after a server restart, chunks the workers finished meanwhile are collected, not computed again', async () => {
-    const settings = testJobSettings(redis.url, 'restart');
+    const settings = testJobSettings(suite.redis.url, 'restart');
     const first = await createBullmqPool(settings);
     const world = await queueWorld(first);
     cleanup.push(() => world.db.destroy(), () => first.close());

@@ -8,7 +8,7 @@ import { createApp } from '../../../server/app';
 import { AuditRunner } from '../../../server/audits/runner';
 import { silentNotifier } from '../../../server/audits/notify';
 import { loadConfig } from '../../../server/config';
-import type { JobPool } from '../../../server/jobs/pool';
+import { createWorkerPool, type JobPool } from '../../../server/jobs/pool';
 import type { JobsSettings } from '../../../server/jobs/settings';
 import { browser, demo } from '../support/accounts';
 import { freshDatabase } from '../support/test-db';
@@ -23,6 +23,10 @@ export const repoRoot = path.resolve(__dirname, '../../..');
 export interface LocalRedis {
   url: string;
   port: number;
+  /** Freezes the server (SIGSTOP): connections stay open and every command waits, as with a Redis that hangs. */
+  freeze(): void;
+  /** Lets a frozen server go on (SIGCONT). */
+  thaw(): void;
   stop(): Promise<void>;
 }
 
@@ -49,13 +53,14 @@ function freePort(): Promise<number> {
   });
 }
 
-export async function startRedis(): Promise<LocalRedis> {
+/** `extraArgs` go to redis-server as they are, e.g. to switch a command off as some hosted Redis services do. */
+export async function startRedis(extraArgs: string[] = []): Promise<LocalRedis> {
   const bin = redisBinary();
   let lastOutput = '';
   for (let attempt = 0; attempt < 3; attempt++) {
     const port = await freePort();
     const dir = mkdtempSync(path.join(os.tmpdir(), 'hairline-redis-'));
-    const child = spawn(bin, ['--port', String(port), '--bind', '127.0.0.1', '--save', '', '--appendonly', 'no', '--dir', dir], { stdio: ['ignore', 'pipe', 'pipe'] });
+    const child = spawn(bin, ['--port', String(port), '--bind', '127.0.0.1', '--save', '', '--appendonly', 'no', '--dir', dir, ...extraArgs], { stdio: ['ignore', 'pipe', 'pipe'] });
     let output = '';
     const ready = await new Promise<boolean>((resolve) => {
       const timer = setTimeout(() => resolve(false), 15_000);
@@ -82,7 +87,12 @@ export async function startRedis(): Promise<LocalRedis> {
       return {
         url: `redis://127.0.0.1:${port}`,
         port,
-        stop: () => stopChild(child),
+        freeze: () => child.kill('SIGSTOP'),
+        thaw: () => child.kill('SIGCONT'),
+        stop: () => {
+          if (child.exitCode === null && child.signalCode === null) child.kill('SIGCONT'); // a frozen server cannot act on SIGTERM
+          return stopChild(child);
+        },
       };
     }
     lastOutput = output;
@@ -102,6 +112,34 @@ export function stopChild(child: ChildProcess, signal: NodeJS.Signals = 'SIGTERM
     });
     child.kill(signal);
   });
+}
+
+/**
+ * The frame of a suite that runs queue workers inside the test process: one
+ * redis-server for the suite and one compute thread; after each test, held
+ * computations are let go first (a worker closing waits for its chunk), then
+ * whatever the test opened is closed, newest first.
+ */
+export function inProcessQueueSuite() {
+  const suite = {
+    /** Set before the first test runs. */
+    redis: undefined as unknown as LocalRedis,
+    threads: createWorkerPool(1),
+    cleanup: [] as Array<() => Promise<unknown>>,
+    releases: [] as Array<() => void>,
+  };
+  beforeAll(async () => {
+    suite.redis = await startRedis();
+  }, 30_000);
+  afterEach(async () => {
+    while (suite.releases.length) suite.releases.pop()!();
+    while (suite.cleanup.length) await suite.cleanup.pop()!().catch(() => {});
+  }, 30_000);
+  afterAll(async () => {
+    await suite.threads.close();
+    await suite.redis?.stop();
+  }, 30_000);
+  return suite;
 }
 
 /** Settings for a test's queue: short holds, so a killed worker's chunk is noticed within seconds. */

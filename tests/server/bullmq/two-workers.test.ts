@@ -48,6 +48,7 @@ describe('bullmq mode with two worker processes', () => {
     const paced: JobPool = {
       width: 4,
       discard: (group) => bullmq.discard(group),
+      status: () => bullmq.status(),
       close: () => bullmq.close(),
       async run<T>(task: Parameters<JobPool['run']>[0], ticket?: Parameters<JobPool['run']>[1]): Promise<T> {
         if (gate) await gate;
