@@ -10,6 +10,7 @@ import { ErrorState } from '../ui/states';
 import { Text } from '../ui/text';
 import { classLook, stateLook } from './looks';
 import { ProgressBar, progressWords, StateTag } from './tags';
+import { WorkerNotice } from './worker-notice';
 
 /** Under the title: state, convention, who started it and with which settings. */
 export function AuditHeader({ audit }: { audit: AuditDetail }) {
@@ -39,6 +40,7 @@ export function SweepProgress({ audit }: { audit: AuditDetail }) {
   return (
     <View className="gap-3">
       <Text className="text-sm text-ink-soft">{stateLook[audit.state].glyph} {stateLook[audit.state].hint}. This page follows it by itself; the table appears when every edge is done.</Text>
+      <WorkerNotice jobs={audit.jobs} />
       <ProgressBar done={p.done} total={p.total} />
       <Text className="font-mono text-sm text-ink">{progressWords(p.done, p.total, p.etaSeconds)}</Text>
       {audit.allowed.includes('cancel') ? (
