@@ -1,6 +1,6 @@
-import { View } from 'react-native';
 import type { AuditDetail } from '@/lib/schemas/audit';
 import { Text } from '../ui/text';
+import { CautionBox } from './caution';
 
 /**
  * In queue mode a run moves only while an `npm run worker` process is
@@ -13,36 +13,24 @@ export function WorkerNotice({ jobs }: { jobs: AuditDetail['jobs'] }) {
   if (jobs.workers === 0) {
     return (
       // An alert: the run is stuck until someone acts, and the page is otherwise only a still bar.
-      <NoticeBox role="alert" label="No queue worker" glyph="!">
+      <CautionBox role="alert" label="No queue worker" glyph="!">
         <Text className="text-sm font-medium leading-5 text-ink">No queue worker is connected, so this run cannot move on.</Text>
         <Text className="text-sm leading-5 text-ink">
           Start one on a machine that can reach the queue’s Redis: <Text className="font-mono text-sm text-ink">npm run worker</Text>. The run
           continues by itself once a worker connects; nothing here needs restarting.
         </Text>
-      </NoticeBox>
+      </CautionBox>
     );
   }
   if (jobs.workers === null) {
     return (
-      <NoticeBox role="note" label="Queue workers unknown" glyph="?">
+      <CautionBox role="note" label="Queue workers unknown" glyph="?">
         <Text className="text-sm leading-5 text-ink">
           The number of connected queue workers could not be read from Redis just now. If the run does not move, check that Redis answers and that
           a worker (<Text className="font-mono text-sm text-ink">npm run worker</Text>) is running.
         </Text>
-      </NoticeBox>
+      </CautionBox>
     );
   }
   return null;
-}
-
-/** The caution look (components/audits/caution.tsx): ochre frame, a glyph, then the words. */
-function NoticeBox({ role, label, glyph, children }: { role: 'alert' | 'note'; label: string; glyph: string; children: React.ReactNode }) {
-  return (
-    <View role={role} aria-label={label} className="flex-row gap-2 rounded-md border border-ochre bg-ochre-soft px-3 py-2">
-      <Text aria-hidden className="font-mono text-sm text-ink">
-        {glyph}
-      </Text>
-      <View className="flex-1 gap-1">{children}</View>
-    </View>
-  );
 }

@@ -9,6 +9,13 @@ export const demoUsers = [
   { email: 'approver@gannet-sound.test', displayName: 'Demo Approver', roles: ['approver'], password: 'tideline-approver-2286' },
 ] as const;
 
+/** The demo account holding `role` (one per role). */
+export function demoUser(role: string): (typeof demoUsers)[number] {
+  const user = demoUsers.find((u) => (u.roles as readonly string[]).includes(role));
+  if (!user) throw new Error(`no demo account holds the role ${role}`);
+  return user;
+}
+
 export const demoNetworks = [
   {
     name: 'Gannet Sound buoy relay',

@@ -5,8 +5,6 @@ import type { Health, JobsStatus } from '../../lib/schemas/health';
 
 const version: string = JSON.parse(readFileSync(path.join(__dirname, '../../package.json'), 'utf8')).version;
 
-export type { Health };
-
 /**
  * Asks the database a trivial question so the answer proves it responds, and
  * reports who computes audit sweeps. No queue worker is not "degraded": the

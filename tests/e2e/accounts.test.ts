@@ -1,11 +1,11 @@
-import { demoUsers } from '../../seeds/data/demo';
+import { demoUser } from '../../seeds/data/demo';
 import { screenshot, viewports, watchErrors } from './support/browser';
 import { useBrowserWorld } from './support/world';
 import { signInAs } from './support/sign-in';
 
 jest.setTimeout(180_000);
 
-const admin = demoUsers.find((u) => (u.roles as readonly string[]).includes('admin'))!;
+const admin = demoUser('admin');
 
 /**
  * The invitation walk-through on a phone, as a new user would try it: the

@@ -1,24 +1,12 @@
-import type { Browser } from 'playwright-core';
 import { randomNetwork } from '../../lib/spectral';
-import { demoUsers } from '../../seeds/data/demo';
-import { screenshot, viewports, watchErrors, type ViewportName } from './support/browser';
-import { signInAs } from './support/sign-in';
+import { demoUser } from '../../seeds/data/demo';
+import { screenshot, unexpectedErrors } from './support/browser';
+import { signedInContext } from './support/sign-in';
 import { useBrowserWorld } from './support/world';
 
 jest.setTimeout(300_000);
 
-const analyst = demoUsers.find((u) => (u.roles as readonly string[]).includes('analyst'))!;
-
-async function as(browser: Browser, baseUrl: string, who: (typeof demoUsers)[number], size: ViewportName) {
-  const context = await browser.newContext({ viewport: viewports[size], acceptDownloads: true });
-  const page = await context.newPage();
-  const errors = watchErrors(page);
-  await signInAs(page, baseUrl, who.email, who.password);
-  return { page, errors, close: () => context.close() };
-}
-
-/** Console noise from refusals the test provokes on purpose. */
-const unexpected = (errors: string[]) => errors.filter((e) => !/status of (409|403)/.test(e));
+const analyst = demoUser('analyst');
 
 /**
  * A 1,000-edge audit (a seeded random network) in the wide table: sorting,
@@ -32,7 +20,7 @@ describe('a 1,000-edge audit table in Chromium', () => {
     // 40 nodes keep each eigen-solve cheap; a short one-sign ladder keeps the 1,000-edge sweep to seconds.
     const net = randomNetwork({ nodes: 40, edgesPerNode: 25, seed: 7 });
     const text = ['source,target,weight', ...net.edges.slice(0, 1000).map((e) => `${e.source},${e.target},${e.weight}`)].join('\n');
-    const { page, errors, close } = await as(world.browser, world.server.url, analyst, 'wide');
+    const { page, errors, close } = await signedInContext(world.browser, world.server.url, analyst, 'wide');
     const auditId = await page.evaluate(async (csv) => {
       const post = (url: string, body: unknown) =>
         fetch(url, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify(body) }).then((r) => r.json());
@@ -97,7 +85,7 @@ describe('a 1,000-edge audit table in Chromium', () => {
     await timed('next page of 200', () => page.getByRole('button', { name: 'Next ›' }).click(), () => firstChanges(before));
     await page.getByText(/201–400 of 1\u2009000/).waitFor();
     await screenshot(page, 'audits-1000-wide');
-    expect(unexpected(errors)).toEqual([]);
+    expect(unexpectedErrors(errors)).toEqual([]);
     await close();
   });
 });

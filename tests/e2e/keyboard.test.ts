@@ -1,12 +1,11 @@
 import type { Page } from 'playwright-core';
-import { demoUsers } from '../../seeds/data/demo';
+import { demoUser } from '../../seeds/data/demo';
 import { screenshot, viewports, watchErrors } from './support/browser';
 import { signInAs } from './support/sign-in';
 import { useBrowserWorld } from './support/world';
 
 jest.setTimeout(180_000);
 
-const user = (role: string) => demoUsers.find((u) => (u.roles as readonly string[]).includes(role))!;
 
 /** Presses Tab until the focused element matches, at most `limit` times; returns its label. */
 async function tabTo(page: Page, match: RegExp, limit = 80): Promise<string> {
@@ -61,7 +60,7 @@ describe('audit table and disposition form with the keyboard alone', () => {
   async function startedAudit(): Promise<number> {
     const context = await world.browser.newContext({ viewport: viewports.wide });
     const analystPage = await context.newPage();
-    await signInAs(analystPage, world.server.url, user('analyst').email, user('analyst').password);
+    await signInAs(analystPage, world.server.url, demoUser('analyst').email, demoUser('analyst').password);
     const auditId: number = await analystPage.evaluate(async () => {
       const r = await fetch('/api/v1/audits', { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ networkId: 1, version: 1 }) });
       return (await r.json()).id;
@@ -75,7 +74,7 @@ describe('audit table and disposition form with the keyboard alone', () => {
 
     const page = await (await world.browser.newContext({ viewport: viewports.wide })).newPage();
     const errors = watchErrors(page);
-    await signInAs(page, world.server.url, user('auditor').email, user('auditor').password);
+    await signInAs(page, world.server.url, demoUser('auditor').email, demoUser('auditor').password);
     await page.goto(`${world.server.url}/audits/${auditId}?flagged=yes`, { waitUntil: 'networkidle' });
     await page.getByText('in review', { exact: true }).first().waitFor({ timeout: 90_000 });
     await page.getByRole('row', { name: /^Edge 0:/ }).waitFor();
@@ -106,7 +105,7 @@ describe('audit table and disposition form with the keyboard alone', () => {
     const auditId = await startedAudit();
     const page = await (await world.browser.newContext({ viewport: { width: 1280, height: 800 } })).newPage();
     const errors = watchErrors(page);
-    await signInAs(page, world.server.url, user('auditor').email, user('auditor').password);
+    await signInAs(page, world.server.url, demoUser('auditor').email, demoUser('auditor').password);
     await page.goto(`${world.server.url}/audits/${auditId}?flagged=yes&sort=tolerance`, { waitUntil: 'networkidle' });
     await page.getByText('in review', { exact: true }).first().waitFor({ timeout: 90_000 });
     const firstRow = page.getByRole('row', { name: /^Edge \d+:/ }).first();

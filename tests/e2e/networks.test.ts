@@ -3,14 +3,14 @@ import os from 'node:os';
 import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { randomNetwork } from '../../lib/spectral';
-import { demoUsers } from '../../seeds/data/demo';
+import { demoUser } from '../../seeds/data/demo';
 import { screenshot, viewports, watchErrors, type ViewportName } from './support/browser';
 import { useBrowserWorld } from './support/world';
 import { signInAs } from './support/sign-in';
 
 jest.setTimeout(240_000);
 
-const analyst = demoUsers.find((u) => (u.roles as readonly string[]).includes('analyst'))!;
+const analyst = demoUser('analyst');
 const tmp = mkdtempSync(path.join(os.tmpdir(), 'hairline-e2e-files-'));
 const demoCsv = path.resolve(__dirname, '../../seeds/data/marrow-fen-microgrid.csv');
 

@@ -1,5 +1,5 @@
 import type { Page } from 'playwright-core';
-import { demoUsers } from '../../seeds/data/demo';
+import { demoUser } from '../../seeds/data/demo';
 import { unnamedControls } from './support/accessible-names';
 import { screenshot, viewports, watchErrors, type ViewportName } from './support/browser';
 import { signInAs } from './support/sign-in';
@@ -7,7 +7,6 @@ import { useBrowserWorld } from './support/world';
 
 jest.setTimeout(300_000);
 
-const person = (role: string) => demoUsers.find((u) => (u.roles as readonly string[]).includes(role))!;
 
 interface Screen {
   name: string;
@@ -94,7 +93,7 @@ describe('every main screen at both sizes', () => {
         const context = await world.browser.newContext({ viewport: viewports[size] });
         const page = await context.newPage();
         const errors = watchErrors(page);
-        const who = person(role);
+        const who = demoUser(role);
         await signInAs(page, world.server.url, who.email, who.password);
         for (const screen of screens) {
           await page.goto(world.server.url + screen.path, { waitUntil: 'networkidle' });

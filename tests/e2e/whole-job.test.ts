@@ -1,30 +1,19 @@
 import { execFileSync } from 'node:child_process';
 import { existsSync, readFileSync } from 'node:fs';
 import path from 'node:path';
-import type { Browser, Page } from 'playwright-core';
-import { demoUsers } from '../../seeds/data/demo';
+import type { Page } from 'playwright-core';
+import { demoUser } from '../../seeds/data/demo';
 import { unnamedControls } from './support/accessible-names';
-import { artifactDir, screenshot, viewports, watchErrors, type ViewportName } from './support/browser';
-import { signInAs } from './support/sign-in';
+import { artifactDir, screenshot, unexpectedErrors, viewports, type ViewportName } from './support/browser';
+import { signedInContext } from './support/sign-in';
 import { useBrowserWorld } from './support/world';
 
 jest.setTimeout(300_000);
 
-const person = (role: string) => demoUsers.find((u) => (u.roles as readonly string[]).includes(role))!;
-const analyst = person('analyst');
-const auditor = person('auditor');
-const approver = person('approver');
+const analyst = demoUser('analyst');
+const auditor = demoUser('auditor');
+const approver = demoUser('approver');
 const demoCsv = path.resolve(__dirname, '../../seeds/data/gannet-sound-buoy-relay.csv');
-
-type Person = (typeof demoUsers)[number];
-
-async function signedIn(browser: Browser, baseUrl: string, who: Person, size: ViewportName) {
-  const context = await browser.newContext({ viewport: viewports[size], acceptDownloads: true });
-  const page = await context.newPage();
-  const errors = watchErrors(page);
-  await signInAs(page, baseUrl, who.email, who.password);
-  return { page, errors, close: () => context.close() };
-}
 
 /** What a person on this screen meets: no nameless control, no sideways scrolling on a phone; then a picture. */
 async function step(page: Page, size: ViewportName, name: string) {
@@ -58,9 +47,6 @@ async function watchProgressBars(page: Page): Promise<() => Promise<{ done: numb
   return () => page.evaluate(() => (window as unknown as { progressSeen: { done: number; total: number }[] }).progressSeen);
 }
 
-/** Console noise from refusals the test provokes on purpose. */
-const unexpected = (errors: string[]) => errors.filter((e) => !/status of (409|403)/.test(e));
-
 const rootType = /square-root|cube-root/;
 
 /**
@@ -83,7 +69,7 @@ describe('the whole job in Chromium', () => {
       let flaggedCount = 0;
 
       test('analyst imports the demo CSV through the upload form, starts an audit and watches the sweep finish', async () => {
-        const { page, errors, close } = await signedIn(world.browser, world.server.url, analyst, size);
+        const { page, errors, close } = await signedInContext(world.browser, world.server.url, analyst, size);
         await page.goto(world.server.url + '/networks', { waitUntil: 'networkidle' });
         await page.getByRole('button', { name: 'Import a network' }).click();
         await page.getByRole('heading', { name: 'Import a network' }).waitFor();
@@ -124,12 +110,12 @@ describe('the whole job in Chromium', () => {
         // The analyst who ran it may look, but neither dispose nor submit.
         await expect(page.getByRole('button', { name: 'Submit for sign-off' }).count()).resolves.toBe(0);
         await step(page, size, '05-swept');
-        expect(unexpected(errors)).toEqual([]);
+        expect(unexpectedErrors(errors)).toEqual([]);
         await close();
       });
 
       test('auditor filters to root-type edges, reads a response plot, disposes every flagged edge and submits', async () => {
-        const { page, errors, close } = await signedIn(world.browser, world.server.url, auditor, size);
+        const { page, errors, close } = await signedInContext(world.browser, world.server.url, auditor, size);
         // From the overview's next step, as a first-time auditor would.
         await page.getByRole('link', { name: /^Audits ready for review/ }).first().click();
         await page.getByRole('heading', { name: 'Audits' }).waitFor();
@@ -196,12 +182,12 @@ describe('the whole job in Chromium', () => {
         await page.getByRole('button', { name: 'Submit for sign-off' }).click();
         await page.getByText('awaiting sign-off', { exact: true }).first().waitFor();
         await step(page, size, '09-submitted');
-        expect(unexpected(errors)).toEqual([]);
+        expect(unexpectedErrors(errors)).toEqual([]);
         await close();
       });
 
       test('approver on a 390×844 phone reads the summary and seals the audit with a comment', async () => {
-        const { page, errors, close } = await signedIn(world.browser, world.server.url, approver, 'phone');
+        const { page, errors, close } = await signedInContext(world.browser, world.server.url, approver, 'phone');
         await page.getByTestId('bottom-bar').getByRole('link', { name: 'Audits' }).click();
         await page.getByRole('heading', { name: 'Audits' }).waitFor();
         await page.getByRole('checkbox', { name: 'awaiting sign-off' }).click();
@@ -233,12 +219,12 @@ describe('the whole job in Chromium', () => {
         await page.getByText(/The hash chain verifies/).waitFor();
         await page.getByText(/SHA-256 over the results/).scrollIntoViewIfNeeded();
         await step(page, 'phone', `13-sealed-${size}-run`);
-        expect(unexpected(errors)).toEqual([]);
+        expect(unexpectedErrors(errors)).toEqual([]);
         await close();
       });
 
       test('after sealing an edit is refused and the PDF report downloads', async () => {
-        const { page, errors, close } = await signedIn(world.browser, world.server.url, auditor, size);
+        const { page, errors, close } = await signedInContext(world.browser, world.server.url, auditor, size);
         await page.goto(world.server.url + auditPath, { waitUntil: 'networkidle' });
         await page.getByText('sealed', { exact: true }).first().waitFor();
         const auditId = auditPath.split('/').pop();
@@ -284,7 +270,7 @@ describe('the whole job in Chromium', () => {
         const lines = readFileSync(csvFile, 'utf8').split('\n').filter(Boolean);
         expect(lines.length).toBe(1 + 17);
         expect(lines.filter((l) => /,yes,(accept|mitigate|monitor),/.test(l)).length).toBe(flaggedCount);
-        expect(unexpected(errors)).toEqual([]);
+        expect(unexpectedErrors(errors)).toEqual([]);
         await close();
       });
     });

@@ -11,7 +11,7 @@
 import { mkdtempSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { demoUsers } from '../../seeds/data/demo';
+import { demoUser } from '../../seeds/data/demo';
 import { korrinGrid } from '../support/korrin-grid';
 import { serverEnv, Session, startChildServer, stopChildServer } from '../support/spawned';
 
@@ -46,7 +46,7 @@ function option(name: string, fallback: number): number {
 }
 
 const pause = (ms: number) => new Promise((r) => setTimeout(r, ms));
-const account = (role: string) => demoUsers.find((u) => u.roles.includes(role as never))!;
+const account = demoUser;
 
 async function main(): Promise<number> {
   const connections = option('connections', 50);

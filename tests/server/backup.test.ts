@@ -11,12 +11,12 @@ import { spawn } from 'node:child_process';
 import { copyFileSync, existsSync, mkdtempSync, rmSync, statSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { demoUsers } from '../../seeds/data/demo';
+import { demoUser } from '../../seeds/data/demo';
 import { defaultBackupFile } from '../../server/cli/backup';
 import { korrinGrid } from '../support/korrin-grid';
 import { repoRoot, serverEnv, Session, startChildServer, stopChildServer, tsxArgs, type ChildServer } from '../support/spawned';
 
-const analystAccount = demoUsers.find((u) => (u.roles as readonly string[]).includes('analyst'))!;
+const analystAccount = demoUser('analyst');
 const pause = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 /** Runs a CLI of server/cli with the server's environment, without blocking the event loop. */

@@ -10,11 +10,11 @@ import { spawnSync } from 'node:child_process';
 import { mkdtempSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { demoUsers } from '../../seeds/data/demo';
+import { demoUser } from '../../seeds/data/demo';
 import { korrinGrid } from '../support/korrin-grid';
 import { repoRoot, serverEnv, Session, startChildServer, stopChildServer, tsxArgs, type ChildServer } from '../support/spawned';
 
-const account = (role: string) => demoUsers.find((u) => u.roles.includes(role as never))!;
+const account = demoUser;
 const pause = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 async function signIn(server: ChildServer, role: 'analyst' | 'auditor' | 'approver') {

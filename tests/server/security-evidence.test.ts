@@ -16,11 +16,11 @@ import { mkdtempSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import request from 'supertest';
-import { demoUsers } from '../../seeds/data/demo';
+import { demoUser, demoUsers } from '../../seeds/data/demo';
 import { serverEnv, Session, startChildServer, stopChildServer, type ChildServer } from '../support/spawned';
 import { accountsWorld, browser, host, signedIn, type AccountsWorld } from './support/accounts';
 
-const account = (role: string) => demoUsers.find((u) => u.roles.includes(role as never))!;
+const account = demoUser;
 
 /** What helmet is set up to send (server/http/security-headers.ts), header by header. */
 const expectedHeaders = {

@@ -48,3 +48,6 @@ export function watchErrors(page: Page): string[] {
   });
   return errors;
 }
+
+/** The collected errors less the console lines of refusals (409, 403) a test provokes on purpose. */
+export const unexpectedErrors = (errors: string[]) => errors.filter((e) => !/status of (409|403)/.test(e));

@@ -242,6 +242,20 @@ export function ringCsv(nodes: number, chord = 7): string {
   return rows.join('\n');
 }
 
+/** Imports a ring of `nodes` (see ringCsv) as the analyst and starts a one-sign audit of it; the start's answer. */
+export async function startRingAudit(
+  analyst: Awaited<ReturnType<Awaited<ReturnType<typeof queueWorld>>['analyst']>>,
+  opts: { name: string; nodes: number; ladderTo?: number },
+) {
+  const imported = await analyst.post('/api/v1/networks/import').send({ name: opts.name, format: 'csv', text: ringCsv(opts.nodes) });
+  if (imported.status !== 201) throw new Error(`import of ${opts.name} answered ${imported.status}`);
+  const started = await analyst
+    .post('/api/v1/audits')
+    .send({ networkId: imported.body.networkId, version: 1, settings: { ladder: { from: 2, to: opts.ladderTo ?? 4, step: 1 }, signs: ['plus'] } });
+  if (started.status !== 201) throw new Error(`start of an audit of ${opts.name} answered ${started.status}`);
+  return started;
+}
+
 /** Every stored column of an audit's edges but the audit id, in edge order. */
 export async function storedEdges(db: Knex, auditId: number) {
   const rows = await db('audit_edges').where({ audit_id: auditId }).orderBy('edge_index');

@@ -6,7 +6,7 @@ import { createBullmqPool, type BullmqPool } from '../../../server/jobs/bullmq-p
 import { redisOptions } from '../../../server/jobs/bullmq-wire';
 import { createWorkerPool, type JobPool } from '../../../server/jobs/pool';
 import { waitForSweep } from '../support/audits';
-import { queueWorld, ringCsv, spawnWorker, startRedis, stopChild, storedEdges, testJobSettings, until, type LocalRedis, type WorkerProcess } from './support';
+import { queueWorld, startRingAudit, spawnWorker, startRedis, stopChild, storedEdges, testJobSettings, until, type LocalRedis, type WorkerProcess } from './support';
 
 /**
  * The acceptance run of bullmq mode: one audit on two `npm run worker`
@@ -70,12 +70,7 @@ describe('bullmq mode with two worker processes', () => {
     await survivor.waitForLine(/ready: queue two-workers/);
 
     const analyst = await world.analyst();
-    const imported = await analyst.post('/api/v1/networks/import').send({ name: 'Ring of sixty', format: 'csv', text: ringCsv(60) });
-    expect(imported.status).toBe(201);
-    const started = await analyst
-      .post('/api/v1/audits')
-      .send({ networkId: imported.body.networkId, version: 1, settings: { ladder: { from: 2, to: 5, step: 1 }, signs: ['plus'] } });
-    expect(started.status).toBe(201);
+    const started = await startRingAudit(analyst, { name: 'Ring of sixty', nodes: 60, ladderTo: 5 });
     const id: number = started.body.id;
     const total: number = started.body.progress.total;
     expect(total).toBe(120);

@@ -7,7 +7,7 @@ import { createBullmqPool } from '../../../server/jobs/bullmq-pool';
 import { startQueueWorker } from '../../../server/jobs/bullmq-worker';
 import type { Task } from '../../../server/jobs/tasks';
 import { waitForSweep } from '../support/audits';
-import { inProcessQueueSuite, queueWorld, ringCsv, startRedis, testJobSettings, until } from './support';
+import { inProcessQueueSuite, queueWorld, startRingAudit, startRedis, testJobSettings, until } from './support';
 
 /**
  * In bullmq mode a run moves only while a queue worker is connected. The
@@ -67,12 +67,7 @@ describe('bullmq mode: how many queue workers are connected', () => {
   test('a queued or sweeping audit carries the count; a finished one does not', async () => {
     const s = await server(suite.redis.url, 'detail-count');
     const analyst = await s.world.analyst();
-    const imported = await analyst.post('/api/v1/networks/import').send({ name: 'Gannet Sound relay ring', format: 'csv', text: ringCsv(31) });
-    expect(imported.status).toBe(201);
-    const started = await analyst
-      .post('/api/v1/audits')
-      .send({ networkId: imported.body.networkId, version: 1, settings: { ladder: { from: 2, to: 4, step: 1 }, signs: ['plus'] } });
-    expect(started.status).toBe(201);
+    const started = await startRingAudit(analyst, { name: 'Gannet Sound relay ring', nodes: 31 });
     const id: number = started.body.id;
     // The answer to the start itself already says nobody will compute it.
     expect(auditDetailSchema.parse(started.body).jobs).toEqual({ mode: 'queue', workers: 0 });
